@@ -1,0 +1,58 @@
+import type { ProfileInput } from '../core/profile.ts';
+
+/** A point to forecast for. Elevation is optional: sources that know the terrain fill it in. */
+export interface ForecastLocation {
+  latitude: number;
+  longitude: number;
+  elevationM?: number;
+  /** Display name, e.g. a saved place; never used to look data up. */
+  name?: string;
+}
+
+export interface ForecastWindow {
+  /** First valid hour wanted, ISO 8601 instant (rounded down to the hour by the source). */
+  startTime: string;
+  /** How many hourly profiles, e.g. 48. */
+  hours: number;
+}
+
+/** Hourly profiles for one location from one model run, already in the project's units. */
+export interface ForecastSeries {
+  location: ForecastLocation;
+  sourceName: string;
+  model: string;
+  /** Model run (initialisation) time, ISO 8601 instant. */
+  runTime: string;
+  /** Units as delivered by the provider before conversion, for the record (e.g. { windSpeed: 'km/h' }). */
+  providerUnits: Record<string, string>;
+  /** True when the data are invented (the demo source); every answer built on it must say so. */
+  invented: boolean;
+  profiles: ProfileInput[];
+}
+
+export type ForecastErrorKind =
+  | 'timeout'
+  | 'network'
+  | 'rate-limited'
+  | 'server'
+  | 'client'
+  | 'bad-response'
+  | 'no-data'
+  | 'bad-profile';
+
+export interface ForecastError {
+  kind: ForecastErrorKind;
+  /** A sentence a person can act on; names the location and the cause. */
+  message: string;
+  location: ForecastLocation;
+}
+
+export type ForecastResult = { ok: true; series: ForecastSeries } | { ok: false; error: ForecastError };
+
+export interface ForecastSource {
+  /** Short name shown in messages, e.g. "open-meteo (gfs_seamless)" or "demo (invented data)". */
+  readonly name: string;
+  fetchSeries(location: ForecastLocation, window: ForecastWindow): Promise<ForecastResult>;
+  /** Several locations at once where the provider allows it; results in the same order. */
+  fetchMany(locations: ForecastLocation[], window: ForecastWindow): Promise<ForecastResult[]>;
+}

@@ -1,0 +1,32 @@
+import type { Message } from '../render/message.ts';
+
+export type Platform = 'slack' | 'discord' | 'terminal';
+
+/** A command as an adapter hands it over: the text after the slash command's name. */
+export interface CommandRequest {
+  platform: Platform;
+  /** Workspace or guild id; '' for the terminal. */
+  teamId: string;
+  channelId: string;
+  userId: string;
+  text: string;
+  /** The user may change what the channel watches (Discord: Manage Channels; Slack: any member). */
+  canManageChannel: boolean;
+}
+
+/** A button press coming back from a message. */
+export interface ActionRequest {
+  platform: Platform;
+  teamId: string;
+  channelId: string;
+  userId: string;
+  actionId: 'mute-rule' | 'show-detail';
+  value: string;
+  canManageChannel: boolean;
+}
+
+/** The router never throws: every outcome, including a user's mistake, is a message. */
+export interface CommandRouter {
+  handleCommand(request: CommandRequest): Promise<Message>;
+  handleAction(request: ActionRequest): Promise<Message>;
+}
