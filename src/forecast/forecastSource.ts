@@ -28,6 +28,11 @@ export interface ForecastSeries {
   /** True when the data are invented (the demo source); every answer built on it must say so. */
   invented: boolean;
   profiles: ProfileInput[];
+  /**
+   * What the source did to the provider's data that a reader should know, in plain words (e.g. a
+   * level dropped and why, a run time derived rather than read). Absent or empty when nothing.
+   */
+  notes?: string[];
 }
 
 export type ForecastErrorKind =

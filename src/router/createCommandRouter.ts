@@ -1,0 +1,90 @@
+import { buildHelpMessage } from '../render/helpMessage.ts';
+import type { Message } from '../render/message.ts';
+import { parseCommand, type Command } from './commandGrammar.ts';
+import { detailFromButton, muteRule } from './handlers/buttonActions.ts';
+import { lookUp, showDetail } from './handlers/forecastCommands.ts';
+import { forgetPlace, listPlaces, savePlace } from './handlers/placeCommands.ts';
+import { listRules, setThreshold } from './handlers/ruleCommands.ts';
+import { setMorningTime, setUnits } from './handlers/settingsCommands.ts';
+import { listWatching, startWatching, stopWatching } from './handlers/watchCommands.ts';
+import { errorMessage } from './replies.ts';
+import type { HandlerContext, RouterDependencies } from './routerContext.ts';
+import type { ActionRequest, CommandRequest, CommandRouter } from './routerTypes.ts';
+
+/**
+ * The one command router every platform feeds. It parses with zod, runs the command and always
+ * answers with a message: a user's mistake is one line with a correct example, and a fault on our
+ * side is reported as such, with nothing changed and nothing thrown to the adapter.
+ */
+export function createCommandRouter(dependencies: RouterDependencies, onFault: (error: unknown, what: string) => void = () => {}): CommandRouter {
+  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>): Promise<HandlerContext> {
+    const channel = await dependencies.store.channels.ensureChannel(
+      { platform: request.platform, teamId: request.teamId, channelId: request.channelId },
+      dependencies.channelDefaults,
+      dependencies.nowMs(),
+    );
+    return { ...dependencies, channel, request };
+  }
+
+  async function guarded(what: string, work: () => Promise<Message>): Promise<Message> {
+    try {
+      return await work();
+    } catch (error) {
+      onFault(error, what);
+      return errorMessage('Something went wrong on our side and nothing was changed. Please try again in a minute.', dependencies.localFooterLine);
+    }
+  }
+
+  function run(context: HandlerContext, command: Command): Promise<Message> {
+    switch (command.verb) {
+      case 'lookup':
+        return lookUp(context, command.place);
+      case 'detail':
+        return showDetail(context, command.place, command.localHour, command.dayOffset);
+      case 'save':
+        return savePlace(context, command.name, command.latitudeDeg, command.longitudeDeg);
+      case 'places':
+        return listPlaces(context);
+      case 'forget':
+        return forgetPlace(context, command.name);
+      case 'watch':
+        return startWatching(context, command.place);
+      case 'unwatch':
+        return stopWatching(context, command.place);
+      case 'watching':
+        return listWatching(context);
+      case 'rules':
+        return listRules(context);
+      case 'threshold':
+        return setThreshold(context, command.ruleId, command.value);
+      case 'morning':
+        return setMorningTime(context, command.localTime);
+      case 'units':
+        return setUnits(context, command.unitSystem);
+      case 'help':
+        return Promise.resolve(
+          buildHelpMessage(dependencies.commandPrefix(context.request.platform), {
+            inventedData: dependencies.suggestedPlaceNames.length > 0,
+            demoPlaceNames: dependencies.suggestedPlaceNames,
+            localFooterLine: dependencies.localFooterLine,
+          }),
+        );
+    }
+  }
+
+  return {
+    handleCommand(request: CommandRequest): Promise<Message> {
+      const parsed = parseCommand(typeof request.text === 'string' ? request.text : '');
+      if (!parsed.ok) return Promise.resolve(errorMessage(parsed.error, dependencies.localFooterLine));
+      return guarded(`command ${parsed.command.verb}`, async () => run(await contextFor(request), parsed.command));
+    },
+    handleAction(request: ActionRequest): Promise<Message> {
+      return guarded(`action ${request.actionId}`, async () => {
+        const context = await contextFor(request);
+        if (request.actionId === 'mute-rule') return muteRule(context, request.value);
+        if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
+        return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);
+      });
+    },
+  };
+}

@@ -1,0 +1,17 @@
+import type { Message, MessageSection } from '../render/message.ts';
+import { buildMessage } from '../render/safetyFooter.ts';
+
+/** A short confirmation or listing. */
+export function noticeMessage(title: string, lines: string[] = [], localFooterLine?: string, inventedData = false): Message {
+  const sections: MessageSection[] = lines.length > 0 ? [{ lines }] : [];
+  return buildMessage({ kind: 'notice', title, sections, inventedData }, localFooterLine);
+}
+
+/** A refusal or a failure: one line a person can act on; nothing was changed. */
+export function errorMessage(text: string, localFooterLine?: string): Message {
+  return buildMessage({ kind: 'error', title: text, sections: [] }, localFooterLine);
+}
+
+/** The sentence every change-refusal shares, so users learn it once. */
+export const NEEDS_MANAGE_CHANNEL =
+  'Only members who can manage this channel may change what it watches or its settings. Nothing was changed.';

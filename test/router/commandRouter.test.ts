@@ -1,0 +1,161 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildForecastSource } from '../../src/app/buildForecastSource.ts';
+import { parseAppConfig } from '../../src/config/appConfig.ts';
+import { FileSource } from '../../src/forecast/fileSource.ts';
+import { encodeForTerminal } from '../../src/render/encodeTerminal.ts';
+import type { Message } from '../../src/render/message.ts';
+import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
+import { createCommandRouter } from '../../src/router/createCommandRouter.ts';
+import type { RouterDependencies } from '../../src/router/routerContext.ts';
+import type { CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
+import { openStore } from '../../src/store/openStore.ts';
+import type { Store } from '../../src/store/storeTypes.ts';
+import { loadRulesFile } from '../../src/watch/rules/loadRules.ts';
+
+// The router against the real parts: a SQLite store in a temp folder, the demo source (invented data)
+// and the shipped rules. Only the clock is fixed, so the answers are repeatable.
+const NOW_MS = Date.parse('2026-08-14T15:00:00Z'); // 09:00 in the demo's time zone (America/Boise)
+
+let folder: string;
+let store: Store;
+let dependencies: RouterDependencies;
+let router: CommandRouter;
+const faults: unknown[] = [];
+
+function request(text: string, overrides: Partial<CommandRequest> = {}): CommandRequest {
+  return { platform: 'terminal', teamId: '', channelId: 'ops', userId: 'fbann', text, canManageChannel: true, ...overrides };
+}
+const text = (message: Message) => encodeForTerminal(message, { color: false });
+
+beforeAll(async () => {
+  folder = mkdtempSync(join(tmpdir(), 'lapsewatch-router-'));
+  store = await openStore({ url: `sqlite:${join(folder, 'store.db')}` });
+  const config = parseAppConfig({}, 'test');
+  if (!config.ok) throw new Error(config.error);
+  const source = buildForecastSource(config.config.forecast, () => NOW_MS);
+  const rules = await loadRulesFile();
+  if (!rules.ok) throw new Error(JSON.stringify(rules.problems));
+  dependencies = {
+    store,
+    source: source.source,
+    forecastHours: 48,
+    findNamedPlace: source.findNamedPlace,
+    suggestedPlaceNames: source.suggestedPlaceNames,
+    channelDefaults: { unitSystem: 'metric', summaryLocalTime: '06:30' },
+    defaultRules: rules.rules,
+    commandPrefix: () => '',
+    nowMs: () => NOW_MS,
+  };
+  router = createCommandRouter(dependencies, (error) => faults.push(error));
+});
+
+afterAll(async () => {
+  await store.close();
+  rmSync(folder, { recursive: true, force: true });
+});
+
+describe('the command router', () => {
+  it('answers help with every command and the footer', async () => {
+    const message = await router.handleCommand(request('help'));
+    const shown = text(message);
+    for (const word of ['detail', 'save', 'watch', 'unwatch', 'threshold', 'morning', 'units']) expect(shown).toContain(word);
+    expect(message.footer).toContain(SAFETY_FOOTER);
+  });
+
+  it('looks up a demo place: coupling hour, chart, invented-data note and footer', async () => {
+    const message = await router.handleCommand(request('Kestrel Bench ICP'));
+    expect(message.kind).toBe('lookup');
+    expect(message.inventedData).toBe(true);
+    expect(message.images.length).toBeGreaterThan(0);
+    expect(text(message)).toMatch(/Invented demo data/);
+    expect(message.footer).toContain(SAFETY_FOOTER);
+    expect(message.actions.map((action) => action.actionId)).toContain('show-detail');
+    expect(faults).toEqual([]);
+  });
+
+  it('saves, lists and forgets a place; a second save under the same name changes nothing', async () => {
+    expect((await router.handleCommand(request('save Cinder Ridge 44.81,-115.43'))).kind).toBe('notice');
+    const again = await router.handleCommand(request('save cinder ridge 45,-116'));
+    expect(again.kind).toBe('error');
+    expect(again.title).toMatch(/already saved/);
+    const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    const places = await store.places.listPlaces(channel!.id);
+    expect(places.map((place) => [place.name, place.latitudeDeg])).toEqual([['Cinder Ridge', 44.81]]);
+    expect(text(await router.handleCommand(request('places')))).toContain('Cinder Ridge');
+    expect((await router.handleCommand(request('forget Cinder Ridge'))).kind).toBe('notice');
+    expect(await store.places.listPlaces(channel!.id)).toEqual([]);
+  });
+
+  it('watches and stops watching; a member who cannot manage the channel changes nothing', async () => {
+    const refused = await router.handleCommand(request('watch Sawback Lookout', { canManageChannel: false }));
+    expect(refused.kind).toBe('error');
+    const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    expect(await store.watches.listWatches(channel!.id)).toEqual([]);
+    expect((await router.handleCommand(request('watch Sawback Lookout'))).title).toMatch(/Watching Sawback Lookout/);
+    expect(text(await router.handleCommand(request('watching')))).toContain('Sawback Lookout');
+    expect((await router.handleCommand(request('unwatch Sawback Lookout'))).kind).toBe('notice');
+    expect(await store.watches.listWatches(channel!.id)).toEqual([]);
+  });
+
+  it('changes a threshold within range and refuses one outside it without writing', async () => {
+    const bad = await router.handleCommand(request('threshold hdw-above -5'));
+    expect(bad.kind).toBe('error');
+    expect(bad.title).toMatch(/Nothing was changed/);
+    const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    expect(await store.rules.listOverrides(channel!.id)).toEqual([]);
+    const unknown = await router.handleCommand(request('threshold no-such-rule 5'));
+    expect(unknown.title).toMatch(/There is no rule "no-such-rule"/);
+    expect((await router.handleCommand(request('threshold hdw-above 250'))).kind).toBe('notice');
+    expect((await store.rules.listOverrides(channel!.id)).map((override) => override.thresholdValue)).toEqual([250]);
+    expect(text(await router.handleCommand(request('rules')))).toMatch(/250 .*this channel/);
+  });
+
+  it('sets units and the morning time', async () => {
+    await router.handleCommand(request('units us'));
+    await router.handleCommand(request('morning 05:45'));
+    const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    expect([channel!.unitSystem, channel!.summaryLocalTime]).toEqual(['us', '05:45']);
+    const lookup = await router.handleCommand(request('Alder Sink'));
+    expect(text(lookup)).toMatch(/ ft/);
+    await router.handleCommand(request('units metric'));
+  });
+
+  it('answers a malformed command with one line and a correct example', async () => {
+    const message = await router.handleCommand(request('morning 27:99'));
+    expect(message.kind).toBe('error');
+    expect(message.title).toMatch(/Try: `morning 06:30`/);
+  });
+
+  it('follows the buttons: detail of one hour with the skew-T, and a six-hour mute', async () => {
+    const lookup = await router.handleCommand(request('Kestrel Bench ICP'));
+    const detailAction = lookup.actions.find((action) => action.actionId === 'show-detail')!;
+    const detail = await router.handleAction({ platform: 'terminal', teamId: '', channelId: 'ops', userId: 'fbann', actionId: 'show-detail', value: detailAction.value, canManageChannel: true });
+    expect(detail.kind).toBe('detail');
+    expect(detail.table?.rows.length).toBeGreaterThanOrEqual(3);
+    expect(detail.table?.rows.every((row) => /unstable|adiabatic|stable|inversion|isothermal/.test(row.join(' ')))).toBe(true);
+    expect(detail.images.length).toBe(1);
+    const mute = await router.handleAction({ platform: 'terminal', teamId: '', channelId: 'ops', userId: 'fbann', actionId: 'mute-rule', value: 'mixing-reaches-dry-layer|43.62,-115.48', canManageChannel: true });
+    expect(mute.title).toMatch(/Muted/);
+    const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    expect(await store.rules.isMuted(channel!.id, 'mixing-reaches-dry-layer', '43.6200,-115.4800', NOW_MS + 5 * 3_600_000)).toBe(true);
+    expect(await store.rules.isMuted(channel!.id, 'mixing-reaches-dry-layer', '43.6200,-115.4800', NOW_MS + 7 * 3_600_000)).toBe(false);
+  });
+
+  it('shows the detail of a named hour', async () => {
+    const detail = await router.handleCommand(request('detail Kestrel Bench ICP 15'));
+    expect(detail.kind).toBe('detail');
+    expect(text(detail)).toMatch(/15:00|3 PM|15 h/);
+  });
+
+  it('reports a source with no data as an error, never as an all-clear', async () => {
+    const empty = mkdtempSync(join(tmpdir(), 'lapsewatch-empty-'));
+    const noData = createCommandRouter({ ...dependencies, source: new FileSource({ directory: empty }) });
+    const message = await noData.handleCommand(request('44.8N 115.4W'));
+    expect(message.kind).toBe('error');
+    expect(message.title).toMatch(/No forecast for 44.80°N 115.40°W/);
+    rmSync(empty, { recursive: true, force: true });
+  });
+});

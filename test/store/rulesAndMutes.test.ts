@@ -1,0 +1,49 @@
+import { expect, it } from 'vitest';
+import { ALL_LOCATIONS } from '../../src/store/storeTypes.ts';
+import { describeEachBackend } from './storeTestBackends.ts';
+
+const target = { platform: 'terminal' as const, teamId: '', channelId: 'console' };
+const here = '44.0500,-121.3100';
+const there = '45.0000,-120.0000';
+
+describeEachBackend('rule overrides and mutes', (h) => {
+  it('sets, replaces, lists and clears a channel threshold', async () => {
+    const store = await h.openFresh();
+    const channel = await store.channels.ensureChannel(target, { unitSystem: 'metric', summaryLocalTime: null }, 1);
+    await store.rules.setOverride(channel.id, 'hdw-high', 250, null, 1_000);
+    const replaced = await store.rules.setOverride(channel.id, 'hdw-high', 300, 25, 2_000);
+    expect(replaced).toEqual({ channelRef: channel.id, ruleId: 'hdw-high', thresholdValue: 300, hysteresisValue: 25, updatedAtMs: 2_000 });
+    await store.rules.setOverride(channel.id, 'c-haines-high', 9, null, 2_000);
+    expect((await store.rules.listOverrides(channel.id)).map((o) => [o.ruleId, o.thresholdValue])).toEqual([
+      ['c-haines-high', 9],
+      ['hdw-high', 300],
+    ]);
+    await expect(store.rules.setOverride(channel.id, 'hdw-high', Number.POSITIVE_INFINITY, null, 3_000)).rejects.toThrow(/threshold/);
+    await expect(store.rules.setOverride(channel.id, 'hdw-high', 1, -2, 3_000)).rejects.toThrow(/hysteresis/);
+    expect((await store.rules.listOverrides(channel.id)).find((o) => o.ruleId === 'hdw-high')?.thresholdValue).toBe(300);
+    expect(await store.rules.clearOverride(channel.id, 'hdw-high')).toBe(true);
+    expect(await store.rules.clearOverride(channel.id, 'hdw-high')).toBe(false);
+  });
+
+  it('mutes a rule at one place until a time, or everywhere', async () => {
+    const store = await h.openFresh();
+    const channel = await store.channels.ensureChannel(target, { unitSystem: 'metric', summaryLocalTime: null }, 1);
+    await store.rules.setMute(channel.id, 'coupling', here, 10_000, 1_000);
+    expect(await store.rules.isMuted(channel.id, 'coupling', here, 9_999)).toBe(true);
+    expect(await store.rules.isMuted(channel.id, 'coupling', here, 10_000)).toBe(false);
+    expect(await store.rules.isMuted(channel.id, 'coupling', there, 5_000)).toBe(false);
+    expect(await store.rules.isMuted(channel.id, 'hdw-high', here, 5_000)).toBe(false);
+
+    await store.rules.setMute(channel.id, 'hdw-high', ALL_LOCATIONS, 20_000, 1_000);
+    expect(await store.rules.isMuted(channel.id, 'hdw-high', there, 5_000)).toBe(true);
+    expect((await store.rules.listActiveMutes(channel.id, 5_000)).map((m) => m.ruleId)).toEqual(['coupling', 'hdw-high']);
+    expect((await store.rules.listActiveMutes(channel.id, 15_000)).map((m) => m.ruleId)).toEqual(['hdw-high']);
+
+    // A second mute of the same rule and place replaces the first.
+    await store.rules.setMute(channel.id, 'coupling', here, 50_000, 2_000);
+    expect(await store.rules.isMuted(channel.id, 'coupling', here, 40_000)).toBe(true);
+    expect(await store.rules.clearMute(channel.id, 'coupling', here)).toBe(true);
+    expect(await store.rules.isMuted(channel.id, 'coupling', here, 40_000)).toBe(false);
+    await expect(store.rules.setMute(channel.id, '', here, 1, 1)).rejects.toThrow(/rule id/);
+  });
+});
