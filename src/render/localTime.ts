@@ -1,0 +1,49 @@
+import { DateTime } from 'luxon';
+
+/**
+ * Times in messages are the place's local wall-clock time, 24-hour clock (incident operations
+ * use it; common practice), with the zone's abbreviation so nobody has to guess.
+ */
+function inZone(isoInstant: string, timeZone: string): DateTime {
+  const instant = DateTime.fromISO(isoInstant, { setZone: true });
+  const local = instant.setZone(timeZone);
+  // An unknown zone name must not break a message: fall back to UTC, which the label says.
+  return local.isValid ? local : instant.toUTC();
+}
+
+/** "Thu 14:00 MDT". */
+export function formatLocalHour(isoInstant: string, timeZone: string): string {
+  const local = inZone(isoInstant, timeZone);
+  return local.isValid ? local.toFormat('ccc HH:mm ZZZZ') : isoInstant;
+}
+
+/** "Thu 14 Aug 14:00 MDT", for alerts where the date matters. */
+export function formatLocalDateHour(isoInstant: string, timeZone: string): string {
+  const local = inZone(isoInstant, timeZone);
+  return local.isValid ? local.toFormat('ccc d LLL HH:mm ZZZZ') : isoInstant;
+}
+
+/** "14:00", for compact places (chart axes, ranges). */
+export function formatLocalClock(isoInstant: string, timeZone: string): string {
+  const local = inZone(isoInstant, timeZone);
+  return local.isValid ? local.toFormat('HH:mm') : isoInstant;
+}
+
+/** "Thu 14 Aug" for a local date "2026-08-14". */
+export function formatLocalDate(localDate: string): string {
+  const day = DateTime.fromISO(localDate, { zone: 'UTC' });
+  return day.isValid ? day.toFormat('ccc d LLL') : localDate;
+}
+
+/** Local hour of day 0..23 and the local date, for chart axes. */
+export function localParts(isoInstant: string, timeZone: string): { hour: number; minute: number; weekday: string; dayLabel: string } | null {
+  const local = inZone(isoInstant, timeZone);
+  if (!local.isValid) return null;
+  return { hour: local.hour, minute: local.minute, weekday: local.toFormat('ccc'), dayLabel: local.toFormat('ccc d LLL') };
+}
+
+/** Model run time as forecasters write it: "12Z 14 Aug 2026". */
+export function formatRunTime(isoInstant: string): string {
+  const run = DateTime.fromISO(isoInstant, { setZone: true }).toUTC();
+  return run.isValid ? `${run.toFormat('HH')}Z ${run.toFormat('d LLL yyyy')}` : isoInstant;
+}
