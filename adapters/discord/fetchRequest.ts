@@ -1,0 +1,12 @@
+import type { RESTOptions } from 'discord.js';
+
+/**
+ * The request strategy for every Discord REST client we make: Node's own fetch.
+ *
+ * @discordjs/rest's default strategy calls its bundled undici 6 `request`, which sends through
+ * the process-wide undici dispatcher. Once undici 7 is loaded (Slack's Socket Mode client loads
+ * it, and it installs its own global dispatcher), multipart bodies built from undici 6's FormData
+ * fail ("action is not a function"), so replies with PNG attachments would never arrive when
+ * Slack and Discord run in one process. fetch encodes the FormData itself, whatever the dispatcher.
+ */
+export const fetchRequest: RESTOptions['makeRequest'] = (url, init) => fetch(url, init as RequestInit) as ReturnType<RESTOptions['makeRequest']>;

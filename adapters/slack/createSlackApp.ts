@@ -1,0 +1,103 @@
+import type { AddressInfo } from 'node:net';
+import { createServer, type Server } from 'node:http';
+import { App, LogLevel } from '@slack/bolt';
+import type { CommandRouter } from '../../src/router/routerTypes.ts';
+import { defaultSlackEncoder, type SlackEncoder } from './slackEncoder.ts';
+import { registerSlackListeners } from './slackListeners.ts';
+import { slackCommandName } from './slackCommandName.ts';
+import { boltRoutes, healthRoute, routeListener, type ExtraRoute } from './healthRoute.ts';
+
+export interface SlackAppOptions {
+  router: CommandRouter;
+  botToken: string;
+  /** HTTP mode: requests are verified with it (v0 HMAC, 5-minute window). */
+  signingSecret?: string;
+  /** Socket Mode: when given, Slack is reached over a WebSocket and no public URL is needed. */
+  appToken?: string;
+  /** Web API base, e.g. "http://127.0.0.1:4000/api/"; Slack's own when absent. */
+  apiUrl?: string;
+  /** Port of the HTTP receiver and of /healthz; 0 picks a free one. Default 3000. */
+  port?: number;
+  /** Interface to listen on. Default all interfaces. */
+  host?: string;
+  encode?: SlackEncoder;
+  logLevel?: LogLevel;
+  /** More GET routes on the same port beside /healthz (e.g. /metrics). */
+  extraRoutes?: ExtraRoute[];
+}
+
+export interface RunningSlackApp {
+  app: App;
+  mode: 'http' | 'socket';
+  /** The port /healthz (and, in HTTP mode, the Slack events endpoint) listens on. */
+  port: number;
+  stop(): Promise<void>;
+}
+
+function withTrailingSlash(url: string): string {
+  return url.endsWith('/') ? url : `${url}/`;
+}
+
+/** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackApp` runs it. */
+export function createSlackApp(options: SlackAppOptions): { app: App; mode: 'http' | 'socket' } {
+  const mode = options.appToken ? 'socket' : 'http';
+  if (mode === 'http' && !options.signingSecret) {
+    throw new Error('Slack HTTP mode needs SLACK_SIGNING_SECRET (or set SLACK_APP_TOKEN for Socket Mode)');
+  }
+  // Replies are worth a couple of quick retries, not the client's default of ten over thirty
+  // minutes: an answer that late is no answer, and pending retries keep the process from exiting.
+  const clientOptions = {
+    ...(options.apiUrl ? { slackApiUrl: withTrailingSlash(options.apiUrl) } : {}),
+    retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 },
+    timeout: 10_000,
+  };
+  const app = new App({
+    token: options.botToken,
+    logLevel: options.logLevel ?? LogLevel.WARN,
+    clientOptions,
+    ...(mode === 'socket'
+      ? { socketMode: true, appToken: options.appToken }
+      : { signingSecret: options.signingSecret, customRoutes: boltRoutes([healthRoute, ...(options.extraRoutes ?? [])]) }),
+  });
+  registerSlackListeners(app, {
+    router: options.router,
+    commandName: slackCommandName(),
+    encode: options.encode ?? defaultSlackEncoder,
+  });
+  return { app, mode };
+}
+
+function listenForRoutes(routes: ExtraRoute[], port: number, host: string | undefined): Promise<Server> {
+  const server = createServer(routeListener(routes));
+  return new Promise((resolve, reject) => {
+    server.once('error', reject);
+    server.listen({ port, ...(host ? { host } : {}) }, () => resolve(server));
+  });
+}
+
+/** Starts the app; resolves once it listens (HTTP) or Slack has said hello (Socket Mode). */
+export async function startSlackApp(options: SlackAppOptions): Promise<RunningSlackApp> {
+  const { app, mode } = createSlackApp(options);
+  const port = options.port ?? 3000;
+  if (mode === 'http') {
+    const server = (await app.start({ port, ...(options.host ? { host: options.host } : {}) })) as Server;
+    return { app, mode, port: (server.address() as AddressInfo).port, stop: () => app.stop() as Promise<void> };
+  }
+  // Socket Mode has no events endpoint; /healthz gets a small server of its own.
+  const health = await listenForRoutes([healthRoute, ...(options.extraRoutes ?? [])], port, options.host);
+  try {
+    await app.start();
+  } catch (error) {
+    health.close();
+    throw error;
+  }
+  return {
+    app,
+    mode,
+    port: (health.address() as AddressInfo).port,
+    stop: async () => {
+      await app.stop();
+      await new Promise<void>((resolve) => health.close(() => resolve()));
+    },
+  };
+}

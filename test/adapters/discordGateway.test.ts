@@ -1,0 +1,142 @@
+// The real discord.js client against a local gateway and REST stand-in: a command goes in as an
+// INTERACTION_CREATE event and comes out as REST calls (deferred callback, then the edited reply).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startDiscordBot, type RunningDiscordBot } from '../../adapters/discord/index.ts';
+import { discordCommandName } from '../../adapters/discord/commands.ts';
+import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
+import { RouterDouble } from './routerDouble.ts';
+import {
+  DiscordStandIn,
+  MANAGE_CHANNELS,
+  SEND_MESSAGES,
+  standInApplicationId,
+  standInChannelId,
+  standInGuildId,
+  startDiscordStandIn,
+} from './discordStandIn.ts';
+
+const footerStart = SAFETY_FOOTER.slice(0, 40);
+
+describe('Discord bot at the wire', () => {
+  let standIn: DiscordStandIn;
+  let router: RouterDouble;
+  let bot: RunningDiscordBot;
+  const logged: string[] = [];
+
+  beforeAll(async () => {
+    standIn = await startDiscordStandIn();
+    standIn.heartbeatIntervalMs = 500;
+    router = new RouterDouble({ withImage: true });
+    bot = await startDiscordBot({
+      router,
+      token: 'invented.discord.token',
+      applicationId: standInApplicationId,
+      apiUrl: standIn.apiUrl,
+      log: (level, text) => logged.push(`${level}: ${text}`),
+    });
+  });
+
+  afterAll(async () => {
+    await bot?.stop();
+    await standIn?.stop();
+  });
+
+  it('found the gateway through GET /gateway/bot and identified with the token', () => {
+    expect(standIn.callsTo(/\/gateway\/bot$/).length).toBeGreaterThan(0);
+    const identify = standIn.gatewayFrames.find((frame) => frame.op === 2);
+    expect(identify?.d.token).toBe('invented.discord.token');
+  });
+
+  it('answers heartbeats, so the client keeps its session', async () => {
+    // The client measures its ping only from a heartbeat that was acknowledged (op 11).
+    const deadline = Date.now() + 5_000;
+    while (bot.client.ws.ping < 0 && Date.now() < deadline) {
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
+    expect(standIn.gatewayFrames.some((frame) => frame.op === 1)).toBe(true);
+    expect(bot.client.ws.ping).toBeGreaterThanOrEqual(0);
+  });
+
+  it('defers at once, then edits the reply into embeds, buttons, the PNG and the footer', async () => {
+    router.hold();
+    const { id, token } = standIn.sendCommand(discordCommandName(), '44.1N,121.3W');
+    const callback = await standIn.waitForCall((call) => call.path === `/api/v10/interactions/${id}/${token}/callback`);
+    // The router is still held: the deferral did not wait for the answer.
+    expect(callback.body).toMatchObject({ type: 5 });
+    expect(standIn.callsTo(/messages\/@original$/).filter((call) => call.path.includes(token))).toHaveLength(0);
+    router.release();
+
+    const edit = await standIn.waitForCall((call) => call.method === 'PATCH' && call.path === `/api/v10/webhooks/${standInApplicationId}/${token}/messages/@original`);
+    const payload = DiscordStandIn.payloadOf(edit);
+    expect(payload.content).toContain(footerStart);
+    expect(payload.embeds[0].footer.text).toContain(footerStart);
+    expect(payload.embeds[0].image.url).toBe('attachment://mixing-48h.png');
+    expect(JSON.stringify(payload.components)).toContain('show-detail:detail:cinder-flats:14');
+    expect(payload.allowed_mentions).toEqual({ parse: [] });
+    expect(edit.body['files[0]']).toMatchObject({ fileName: 'mixing-48h.png' });
+
+    expect(router.commands.at(-1)).toEqual({
+      platform: 'discord',
+      teamId: standInGuildId,
+      channelId: standInChannelId,
+      userId: '1100000000000000005',
+      text: '44.1N,121.3W',
+      canManageChannel: true,
+    });
+  });
+
+  it('passes an empty text when the option is left out', async () => {
+    const { token } = standIn.sendCommand(discordCommandName(), undefined);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(router.commands.at(-1)?.text).toBe('');
+  });
+
+  it('a member without Manage Channels gets canManageChannel=false', async () => {
+    const { token } = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', SEND_MESSAGES);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(router.commands.at(-1)).toMatchObject({ text: 'watch Cinder Flats', canManageChannel: false });
+  });
+
+  it('an Administrator counts as able to manage the channel', async () => {
+    const { token } = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', 1n << 3n);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(router.commands.at(-1)?.canManageChannel).toBe(true);
+  });
+
+  it('routes a button press to handleAction with the action id and value from custom_id', async () => {
+    const { id, token } = standIn.sendButton('mute-rule:mute:coupling:cinder-flats', MANAGE_CHANNELS);
+    await standIn.waitForCall((call) => call.path === `/api/v10/interactions/${id}/${token}/callback`);
+    const edit = await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(DiscordStandIn.payloadOf(edit).content).toContain(footerStart);
+    expect(router.actions.at(-1)).toEqual({
+      platform: 'discord',
+      teamId: standInGuildId,
+      channelId: standInChannelId,
+      userId: '1100000000000000005',
+      actionId: 'mute-rule',
+      value: 'mute:coupling:cinder-flats',
+      canManageChannel: true,
+    });
+  });
+
+  it('ignores other commands and unknown buttons without calling the router', async () => {
+    const before = router.commands.length + router.actions.length;
+    const other = standIn.sendCommand('someone-elses', 'x');
+    const button = standIn.sendButton('not-ours:1');
+    // A later command of ours is answered; the two before it were skipped, not queued.
+    const ours = standIn.sendCommand(discordCommandName(), 'help');
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(ours.token));
+    expect(router.commands.length + router.actions.length).toBe(before + 1);
+    expect(standIn.callbackOf(other.id)).toBeUndefined();
+    expect(standIn.callbackOf(button.id)).toBeUndefined();
+  });
+
+  it('survives an interaction whose callback Discord refuses (expired token), and keeps answering', async () => {
+    standIn.addFault({ path: /\/callback$/, status: 404, body: { message: 'Unknown interaction', code: 10062 }, times: 1 });
+    const failed = standIn.sendCommand(discordCommandName(), 'Cinder Flats');
+    await standIn.waitForCall((call) => call.path.includes(`/interactions/${failed.id}/`) && call.status === 404);
+    const next = standIn.sendCommand(discordCommandName(), 'Cinder Flats');
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(next.token));
+    expect(logged.some((line) => line.includes(failed.id) && line.includes('Unknown interaction'))).toBe(true);
+  });
+});
