@@ -54,6 +54,8 @@ export interface DryNearAdiabaticLayer {
 export interface MixingReport {
   /** Parcel-method mixing height above ground. */
   aglM: number;
+  /** True when no level is warmer in θ than the surface parcel: aglM is the profile top, a lower bound. Always set by analyzeProfile. */
+  reachesProfileTop?: boolean;
   mslM: number;
   pressureHpa: number;
   /** Surface temperature used for the parcel (profile's own or the given afternoon value). */
@@ -147,7 +149,8 @@ export interface AnalysisResult {
   /** Mixing height at or above the surface parcel's LCL: a plume may build cloud. */
   plumeCloudPossible: boolean;
   haines: HainesReport;
-  cHaines: ContinuousHainesReport;
+  /** Null where 850 hPa is under the ground (the index reads 850 and 700 hPa). */
+  cHaines: ContinuousHainesReport | null;
   /** Hot-Dry-Windy Index, hPa·m/s. */
   hdw: number;
   hdwInputs: { maxVapourPressureDeficitHpa: number; maxWindSpeedMs: number };
