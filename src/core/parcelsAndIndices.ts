@@ -1,24 +1,23 @@
-import type { AnalysisResult, ContinuousHainesReport } from './analysisResult.ts';
+import type { AnalysisResult } from './analysisResult.ts';
 import { continuousHaines } from './indices/continuousHaines.ts';
 import { hainesIndex } from './indices/hainesIndex.ts';
 import { hotDryWindyIndex } from './indices/hotDryWindyIndex.ts';
 import { pyrocumulonimbusFirepowerThreshold } from './indices/pyrocumulonimbusFirepowerThreshold.ts';
 import { downdraftCapeJkg } from './parcels/downdraftCape.ts';
 import { environmentColumns } from './parcels/environmentColumns.ts';
-import { liftParcel } from './parcels/liftParcel.ts';
+import { liftParcel, liftParcelWithLclTemperature } from './parcels/liftParcel.ts';
 import { mixedLayerMeans } from './parcels/mixedLayerParcel.ts';
 import { precipitableWaterMm } from './parcels/precipitableWater.ts';
 import type { PreparedProfile } from './profile.ts';
-import { liftingCondensationLevel } from './thermo/lcl.ts';
 
 /**
  * The parcel and index part of the analysis. cHaines is null where 850 hPa is under the ground or
  * 700 hPa above the profile top: C-Haines is defined on those two levels only (Mills and McCaw 2010).
  */
-export type ParcelsAndIndices = Omit<
-  Pick<AnalysisResult, 'lcl' | 'parcels' | 'dcapeJkg' | 'precipitableWaterMm' | 'haines' | 'cHaines' | 'hdw' | 'hdwInputs' | 'pft'>,
-  'cHaines'
-> & { cHaines: ContinuousHainesReport | null };
+export type ParcelsAndIndices = Pick<
+  AnalysisResult,
+  'lcl' | 'parcels' | 'dcapeJkg' | 'precipitableWaterMm' | 'haines' | 'cHaines' | 'hdw' | 'hdwInputs' | 'pft'
+>;
 
 export interface ParcelsAndIndicesOptions {
   /** Lift with the virtual temperature correction (Doswell and Rasmussen 1994). */
@@ -31,13 +30,13 @@ export interface ParcelsAndIndicesOptions {
  */
 export function analyzeParcelsAndIndices(profile: PreparedProfile, options: ParcelsAndIndicesOptions): ParcelsAndIndices {
   const environment = environmentColumns(profile, options.virtualTemperature);
-  const surfaceParcel = liftParcel(profile, environment, profile.temperatureC[0], profile.dewpointC[0]);
+  const surfaceLift = liftParcelWithLclTemperature(profile, environment, profile.temperatureC[0], profile.dewpointC[0]);
+  const surfaceParcel = surfaceLift.report;
   const mixedLayer = mixedLayerMeans(profile, environment.mixingRatioKgKg);
   const mixedLayerParcel = liftParcel(profile, environment, mixedLayer.startTemperatureC, mixedLayer.startDewpointC);
-  const surfaceLcl = liftingCondensationLevel(profile.pressureHpa[0], profile.temperatureC[0], profile.dewpointC[0]);
   const hdw = hotDryWindyIndex(profile);
   return {
-    lcl: { pressureHpa: surfaceParcel.lclPressureHpa, temperatureC: surfaceLcl.temperatureC, heightAglM: surfaceParcel.lclHeightAglM },
+    lcl: { pressureHpa: surfaceParcel.lclPressureHpa, temperatureC: surfaceLift.lclTemperatureC, heightAglM: surfaceParcel.lclHeightAglM },
     parcels: { surface: surfaceParcel, mixedLayer: mixedLayerParcel },
     dcapeJkg: downdraftCapeJkg(profile, environment),
     precipitableWaterMm: precipitableWaterMm(profile.pressureHpa, environment.mixingRatioKgKg),

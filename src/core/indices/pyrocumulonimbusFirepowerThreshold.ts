@@ -118,8 +118,11 @@ export function pyrocumulonimbusFirepowerThreshold(profile: PreparedProfile, mix
       break;
     }
   }
-  const saturatedThetaEK = new Float64Array(count);
-  for (let index = 0; index < count; index++) {
+  // Only levels up to the first one above the limit are ever read.
+  let lastNeeded = 1;
+  while (lastNeeded < count - 1 && p[lastNeeded] > limitPressureHpa) lastNeeded++;
+  const saturatedThetaEK = new Float64Array(count).fill(-Infinity);
+  for (let index = 0; index <= lastNeeded; index++) {
     saturatedThetaEK[index] = saturatedEquivalentPotentialTemperatureK(profile.temperatureC[index], p[index]);
   }
   const thetaEsAt = (pressureHpa: number): number => {

@@ -34,6 +34,16 @@ export function liftParcel(
   startTemperatureC: number,
   startDewpointC: number,
 ): ParcelReport {
+  return liftParcelWithLclTemperature(profile, environment, startTemperatureC, startDewpointC).report;
+}
+
+/** liftParcel, also giving the parcel's LCL temperature (the analysis reports it for the surface parcel). */
+export function liftParcelWithLclTemperature(
+  profile: PreparedProfile,
+  environment: EnvironmentColumns,
+  startTemperatureC: number,
+  startDewpointC: number,
+): { report: ParcelReport; lclTemperatureC: number } {
   const pressures = profile.pressureHpa;
   const envTemperatureK = environment.buoyancyTemperatureK;
   const useVirtual = environment.virtualTemperature;
@@ -130,7 +140,7 @@ export function liftParcel(
     capeJkg = capeAtElJkg;
   }
 
-  return {
+  const report: ParcelReport = {
     startPressureHpa,
     startTemperatureC,
     startDewpointC: startDewpoint,
@@ -141,6 +151,7 @@ export function liftParcel(
     lfcPressureHpa,
     elPressureHpa,
   };
+  return { report, lclTemperatureC: lcl.temperatureC };
 }
 
 /** Temperature, K, of the parcel as buoyancy sees it: Tv with its own (or saturation) mixing ratio, or T. */
