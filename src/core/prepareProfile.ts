@@ -1,4 +1,4 @@
-import type { ProfileInput, PreparedProfile } from './profile.ts';
+import type { LevelInput, ProfileInput, PreparedProfile } from './profile.ts';
 import { potentialTemperatureK } from './thermo/potentialTemperature.ts';
 
 export type PreparedProfileResult = { ok: true; profile: PreparedProfile } | { ok: false; errors: string[] };
@@ -9,52 +9,67 @@ const DEWPOINT_ROUNDING_TOLERANCE_C = 0.05;
 const MIN_LEVEL_HEIGHT_ABOVE_GROUND_M = 10;
 const MIN_USABLE_LEVELS = 3;
 
+const SURFACE_FIELDS = ['pressureHpa', 'elevationM', 'temperatureC', 'dewpointC', 'windDirDeg', 'windSpeedMs'] as const;
+const LEVEL_FIELDS = ['pressureHpa', 'heightM', 'temperatureC', 'dewpointC', 'windDirDeg', 'windSpeedMs'] as const;
+
 /**
  * Quality control and intake of a profile: sorts levels by pressure, drops levels under the ground
  * (pressure at or above the surface pressure: models extrapolate them and they are not air), computes
  * heights above ground and θ. Any fault in the air that is left is an error naming the level, the
- * field and why; a profile with errors yields no numbers.
+ * field and why; a profile with errors yields no numbers. Runs once per forecast hour, so it builds
+ * no strings unless something is wrong.
  */
 export function prepareProfile(input: ProfileInput): PreparedProfileResult {
   const errors: string[] = [];
   const surface = input.surface;
-  if (!surface) return { ok: false, errors: ['missing surface: the profile needs a surface observation (pressureHpa, elevationM, temperatureC, dewpointC, windDirDeg, windSpeedMs)'] };
-  checkFinite(errors, 'surface', surface as unknown as Record<string, number>, ['pressureHpa', 'elevationM', 'temperatureC', 'dewpointC', 'windDirDeg', 'windSpeedMs']);
-  input.levels.forEach((level, index) =>
-    checkFinite(errors, `level ${index} (${level.pressureHpa} hPa)`, level as unknown as Record<string, number>, ['pressureHpa', 'heightM', 'temperatureC', 'dewpointC', 'windDirDeg', 'windSpeedMs']),
-  );
-  if (errors.length > 0) return { ok: false, errors };
-
-  const aboveGround = input.levels
-    .filter((level) => level.pressureHpa < surface.pressureHpa)
-    .sort((a, b) => b.pressureHpa - a.pressureHpa)
-    .filter((level) => level.heightM - surface.elevationM >= MIN_LEVEL_HEIGHT_ABOVE_GROUND_M || level.heightM <= surface.elevationM);
-
-  const rows = [
-    { label: 'surface', pressureHpa: surface.pressureHpa, heightM: surface.elevationM, temperatureC: surface.temperatureC, dewpointC: surface.dewpointC, windDirDeg: surface.windDirDeg, windSpeedMs: surface.windSpeedMs },
-    ...aboveGround.map((level) => ({ label: `level at ${level.pressureHpa} hPa`, ...level })),
-  ];
-
-  for (let index = 0; index < rows.length; index++) {
-    const row = rows[index];
-    if (row.dewpointC > row.temperatureC + DEWPOINT_ROUNDING_TOLERANCE_C) {
-      errors.push(`${row.label}: dewpointC ${row.dewpointC} °C is above temperatureC ${row.temperatureC} °C; a dew point cannot exceed the temperature`);
-    }
-    if (index > 0) {
-      const below = rows[index - 1];
-      if (row.pressureHpa === below.pressureHpa) {
-        errors.push(`${row.label}: pressure ${row.pressureHpa} hPa appears twice; each level needs its own pressure`);
-      } else if (row.heightM <= below.heightM) {
-        errors.push(`${row.label}: heightM ${row.heightM} m is not above the ${below.label} (${below.heightM} m); height must increase as pressure falls`);
-      }
-    }
+  if (!surface) {
+    return { ok: false, errors: ['missing surface: the profile needs a surface observation (pressureHpa, elevationM, temperatureC, dewpointC, windDirDeg, windSpeedMs)'] };
   }
-  if (rows.length < MIN_USABLE_LEVELS) {
-    errors.push(`only ${rows.length} usable level(s) above the ground including the surface; at least ${MIN_USABLE_LEVELS} are needed (levels under the ground, with pressure at or above the surface pressure ${surface.pressureHpa} hPa, are dropped)`);
+  for (const field of SURFACE_FIELDS) {
+    if (!isFiniteNumber(surface[field])) errors.push(`surface: ${field} is ${describeValue(surface[field])}; it must be a finite number`);
+  }
+  const levels = input.levels ?? [];
+  for (let index = 0; index < levels.length; index++) {
+    const level = levels[index];
+    for (const field of LEVEL_FIELDS) {
+      if (!isFiniteNumber(level[field])) errors.push(`level ${index} (${level.pressureHpa} hPa): ${field} is ${describeValue(level[field])}; it must be a finite number`);
+    }
   }
   if (errors.length > 0) return { ok: false, errors };
 
-  const count = rows.length;
+  const aboveGround: LevelInput[] = [];
+  for (const level of levels) {
+    if (level.pressureHpa >= surface.pressureHpa) continue;
+    // A level just above the ground is dropped; one at or below the ground's height is kept so the
+    // height check below reports it.
+    const heightAboveGroundM = level.heightM - surface.elevationM;
+    if (heightAboveGroundM > 0 && heightAboveGroundM < MIN_LEVEL_HEIGHT_ABOVE_GROUND_M) continue;
+    aboveGround.push(level);
+  }
+  aboveGround.sort((a, b) => b.pressureHpa - a.pressureHpa);
+
+  const count = aboveGround.length + 1;
+  const label = (index: number) => (index === 0 ? 'surface' : `level at ${aboveGround[index - 1].pressureHpa} hPa`);
+  const pressureAt = (index: number) => (index === 0 ? surface.pressureHpa : aboveGround[index - 1].pressureHpa);
+  const heightAt = (index: number) => (index === 0 ? surface.elevationM : aboveGround[index - 1].heightM);
+  for (let index = 0; index < count; index++) {
+    const temperatureC = index === 0 ? surface.temperatureC : aboveGround[index - 1].temperatureC;
+    const dewpointC = index === 0 ? surface.dewpointC : aboveGround[index - 1].dewpointC;
+    if (dewpointC > temperatureC + DEWPOINT_ROUNDING_TOLERANCE_C) {
+      errors.push(`${label(index)}: dewpointC ${dewpointC} °C is above temperatureC ${temperatureC} °C; a dew point cannot exceed the temperature`);
+    }
+    if (index === 0) continue;
+    if (pressureAt(index) === pressureAt(index - 1)) {
+      errors.push(`${label(index)}: pressure ${pressureAt(index)} hPa appears twice; each level needs its own pressure`);
+    } else if (heightAt(index) <= heightAt(index - 1)) {
+      errors.push(`${label(index)}: heightM ${heightAt(index)} m is not above the ${label(index - 1)} (${heightAt(index - 1)} m); height must increase as pressure falls`);
+    }
+  }
+  if (count < MIN_USABLE_LEVELS) {
+    errors.push(`only ${count} usable level(s) above the ground including the surface; at least ${MIN_USABLE_LEVELS} are needed (levels under the ground, with pressure at or above the surface pressure ${surface.pressureHpa} hPa, are dropped)`);
+  }
+  if (errors.length > 0) return { ok: false, errors };
+
   const profile: PreparedProfile = {
     name: input.name,
     validTime: input.validTime,
@@ -70,26 +85,31 @@ export function prepareProfile(input: ProfileInput): PreparedProfileResult {
     windVMs: new Float64Array(count),
     thetaK: new Float64Array(count),
   };
-  rows.forEach((row, index) => {
-    const directionRad = (row.windDirDeg * Math.PI) / 180;
-    profile.pressureHpa[index] = row.pressureHpa;
-    profile.heightMslM[index] = row.heightM;
-    profile.heightAglM[index] = row.heightM - surface.elevationM;
-    profile.temperatureC[index] = row.temperatureC;
-    profile.dewpointC[index] = Math.min(row.dewpointC, row.temperatureC);
+  for (let index = 0; index < count; index++) {
+    const level = index === 0 ? null : aboveGround[index - 1];
+    const pressureHpa = level ? level.pressureHpa : surface.pressureHpa;
+    const heightM = level ? level.heightM : surface.elevationM;
+    const temperatureC = level ? level.temperatureC : surface.temperatureC;
+    const dewpointC = level ? level.dewpointC : surface.dewpointC;
+    const windSpeedMs = level ? level.windSpeedMs : surface.windSpeedMs;
+    const directionRad = ((level ? level.windDirDeg : surface.windDirDeg) * Math.PI) / 180;
+    profile.pressureHpa[index] = pressureHpa;
+    profile.heightMslM[index] = heightM;
+    profile.heightAglM[index] = heightM - surface.elevationM;
+    profile.temperatureC[index] = temperatureC;
+    profile.dewpointC[index] = Math.min(dewpointC, temperatureC);
     // Meteorological direction is where the wind comes from: a north wind (0°) blows toward −v.
-    profile.windUMs[index] = -row.windSpeedMs * Math.sin(directionRad);
-    profile.windVMs[index] = -row.windSpeedMs * Math.cos(directionRad);
-    profile.thetaK[index] = potentialTemperatureK(row.temperatureC, row.pressureHpa);
-  });
+    profile.windUMs[index] = -windSpeedMs * Math.sin(directionRad);
+    profile.windVMs[index] = -windSpeedMs * Math.cos(directionRad);
+    profile.thetaK[index] = potentialTemperatureK(temperatureC, pressureHpa);
+  }
   return { ok: true, profile };
 }
 
-function checkFinite(errors: string[], label: string, record: Record<string, number>, fields: string[]): void {
-  for (const field of fields) {
-    const value = record[field];
-    if (typeof value !== 'number' || !Number.isFinite(value)) {
-      errors.push(`${label}: ${field} is ${value === undefined ? 'missing' : String(value)}; it must be a finite number`);
-    }
-  }
+function isFiniteNumber(value: unknown): value is number {
+  return typeof value === 'number' && Number.isFinite(value);
+}
+
+function describeValue(value: unknown): string {
+  return value === undefined ? 'missing' : String(value);
 }
