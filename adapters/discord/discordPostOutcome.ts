@@ -1,4 +1,5 @@
-import { DiscordAPIError, HTTPError, RateLimitError } from 'discord.js';
+// The same module as the poster's REST client: discord.js's own copy is a different class (CJS build).
+import { DiscordAPIError, HTTPError, RateLimitError } from '@discordjs/rest';
 import type { PostOutcome } from '../../src/delivery/channelPoster.ts';
 
 /**

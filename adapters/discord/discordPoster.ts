@@ -1,4 +1,6 @@
-import { REST, Routes, type APIMessage } from 'discord.js';
+// @discordjs/rest alone: loading all of discord.js costs a sender process seconds at start-up.
+import { REST } from '@discordjs/rest';
+import { Routes, type APIMessage } from 'discord-api-types/v10';
 import type { ChannelPoster, ChannelTarget, PostOutcome } from '../../src/delivery/channelPoster.ts';
 import type { DiscordEncoding } from '../../src/render/encodeDiscord.ts';
 import type { Message } from '../../src/render/message.ts';

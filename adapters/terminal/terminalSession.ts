@@ -15,7 +15,14 @@ export interface TerminalSessionOptions {
   firstCommand?: string;
   /** The terminal's channel: one per machine, like a chat channel of one. */
   channelId?: string;
+  /** Terminal-only `pause SECONDS`: lets scheduled messages arrive during a scripted demo. */
+  pause?: (seconds: number) => Promise<void>;
+  /** Runs once the input ends, before the session returns (e.g. send what the last commands queued). */
+  beforeExit?: () => Promise<void>;
 }
+
+/** Longest `pause` a script may ask for, seconds. */
+const MAX_PAUSE_S = 600;
 
 /** The terminal's stand-in for a chat channel id. */
 export const TERMINAL_CHANNEL_ID = 'terminal';
@@ -57,10 +64,16 @@ export async function runTerminalSession(options: TerminalSessionOptions): Promi
   for await (const line of lines) {
     const text = line.trim();
     if (text === 'quit' || text === 'exit') break;
-    if (text.length > 0) await answer(text);
+    const pauseMatch = /^pause\s+(\d+(?:\.\d+)?)$/i.exec(text);
+    if (pauseMatch && options.pause) {
+      await options.pause(Math.min(MAX_PAUSE_S, Number(pauseMatch[1])));
+    } else if (text.length > 0 && !text.startsWith('#')) {
+      await answer(text);
+    }
     if (interactive) lines.prompt();
   }
   lines.close();
+  await options.beforeExit?.();
 }
 
 function safeUserName(): string {

@@ -6,6 +6,7 @@ import { FileSource } from '../forecast/fileSource.ts';
 import { ForecastCache } from '../forecast/forecastCache.ts';
 import type { ForecastLocation, ForecastSource } from '../forecast/forecastSource.ts';
 import { OpenMeteoSource } from '../forecast/openMeteoSource.ts';
+import { instrumentedSource } from './instrumentedSource.ts';
 
 export interface ConfiguredSource {
   /** The source behind the in-process cache. */
@@ -21,7 +22,7 @@ export function buildForecastSource(config: AppConfig['forecast'], nowMs: () => 
   const setting = config.source;
   if (setting === 'demo') {
     return {
-      source: new ForecastCache(new DemoSource(), { model: DEMO_MODEL }, nowMs),
+      source: new ForecastCache(instrumentedSource(new DemoSource()), { model: DEMO_MODEL }, nowMs),
       findNamedPlace: (name) => {
         const place = findDemoPlace(name);
         return place ? { latitude: place.latitude, longitude: place.longitude, elevationM: place.elevationM, name: place.name } : null;
@@ -32,12 +33,12 @@ export function buildForecastSource(config: AppConfig['forecast'], nowMs: () => 
   }
   if (setting === 'http') {
     return {
-      source: new ForecastCache(new OpenMeteoSource(config.openMeteo, { nowMs }), { model: config.openMeteo.model }, nowMs),
+      source: new ForecastCache(instrumentedSource(new OpenMeteoSource(config.openMeteo, { nowMs })), { model: config.openMeteo.model }, nowMs),
       findNamedPlace: () => null,
       suggestedPlaceNames: [],
       invented: false,
     };
   }
   const directory = resolve(setting.slice('files:'.length));
-  return { source: new FileSource({ directory }), findNamedPlace: () => null, suggestedPlaceNames: [], invented: false };
+  return { source: instrumentedSource(new FileSource({ directory })), findNamedPlace: () => null, suggestedPlaceNames: [], invented: false };
 }

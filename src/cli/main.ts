@@ -18,6 +18,10 @@ const COMMANDS: Record<string, CommandEntry> = {
     summary: 'follow a forecast hour by hour and report where it crosses the watch rules',
     load: async () => (await import('./watchCommand.ts')).watchCommand,
   },
+  start: {
+    summary: 'run the bot: chat adapters with credentials set, else the terminal; scheduler and outbox',
+    load: async () => (await import('./startCommand.ts')).startCommand,
+  },
 };
 
 function usage(): string {

@@ -51,6 +51,10 @@ export interface AlertContent {
   direction: 'rising' | 'falling';
   /** Name of the quantity in the first line; a sensible one per kind when absent. */
   quantityLabel?: string;
+  /** What the threshold is, when it is not a fixed value, e.g. "the base of the dry layer aloft". */
+  thresholdLabel?: string;
+  /** One more line after the first, e.g. how deep mixing runs once it couples. */
+  consequenceLine?: string;
   model: string;
   runTime: string;
   sourceName: string;
@@ -135,7 +139,8 @@ export function buildAlertMessage(alert: AlertContent, units: UnitSystem, option
   const value = formatAlertValue(alert.value, alert.valueKind, units);
   const threshold = formatAlertValue(alert.threshold, alert.valueKind, units);
   const quantity = alert.quantityLabel ?? QUANTITY[alert.valueKind] ?? 'Value';
-  const crossing = alert.direction === 'rising' ? `at or above the threshold of ${threshold}` : `at or below the threshold of ${threshold}`;
+  const thresholdName = alert.thresholdLabel ?? 'the threshold';
+  const crossing = alert.direction === 'rising' ? `at or above ${thresholdName} of ${threshold}` : `at or below ${thresholdName} of ${threshold}`;
   const placeKey = alert.placeKey ?? placeKeyOf(alert.latitude, alert.longitude);
   return buildMessage(
     {
@@ -147,6 +152,7 @@ export function buildAlertMessage(alert: AlertContent, units: UnitSystem, option
         {
           lines: [
             `${quantity} ${value} at ${when}, ${crossing}.`,
+            ...(alert.consequenceLine ? [alert.consequenceLine] : []),
             groundMeaning(alert),
             sourceLine(alert.model, alert.runTime, alert.sourceName, alert.invented),
           ],

@@ -174,6 +174,23 @@ export function drawMixingChartSvg(series: SeriesAssessment, options: MixingChar
   ].join('\n');
 }
 
+/**
+ * Charts already drawn, by series object and options. A cached forecast is assessed once and its
+ * assessment is then one object for every channel that asks (series are never changed after
+ * assessment), so the SVG, whose hour labels cost most of its drawing, is drawn once per run.
+ */
+const drawnCharts = new WeakMap<SeriesAssessment, Map<string, string>>();
+
+function chartSvgOnce(series: SeriesAssessment, options: MixingChartOptions): string {
+  // Every option, by name: one added later is part of the key without anyone remembering to add it.
+  const key = JSON.stringify(options, Object.keys(options).sort());
+  let byOptions = drawnCharts.get(series);
+  if (!byOptions) drawnCharts.set(series, (byOptions = new Map()));
+  let svg = byOptions.get(key);
+  if (svg === undefined) byOptions.set(key, (svg = drawMixingChartSvg(series, options)));
+  return svg;
+}
+
 export function drawMixingChartPng(series: SeriesAssessment, options: MixingChartOptions): PngResult {
-  return rasterizeSvgToPng(drawMixingChartSvg(series, options));
+  return rasterizeSvgToPng(chartSvgOnce(series, options));
 }

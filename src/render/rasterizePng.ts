@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import { PngCache } from './pngCache.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
 
 /** Our charts' font, loaded by file path so that the picture does not depend on the host's fonts. */
@@ -8,26 +9,66 @@ const FONT_FILES = ['DejaVuSans.ttf', 'DejaVuSans-Bold.ttf'].map((file) => `${FO
 
 export type PngResult = { ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { ok: false; reason: string };
 
-let fontOptions: ResvgRenderOptions['font'] | undefined;
+interface RenderSettings {
+  options: ResvgRenderOptions;
+  /** Everything in `options` as text: part of every cache key, so other settings can never hit a stale picture. */
+  key: string;
+}
 
-/** DejaVu Sans when its files are there; otherwise whatever the system offers (text may look different). */
-function fonts(): ResvgRenderOptions['font'] {
-  if (fontOptions) return fontOptions;
+let settings: RenderSettings | undefined;
+
+/**
+ * Decided once per process: DejaVu Sans when its files are there, system-font discovery off (it
+ * scans every font on the host, per call); otherwise whatever the system offers (text may look
+ * different). The native binding takes fonts only by path, so the files are named, not held.
+ */
+function renderSettings(): RenderSettings {
+  if (settings) return settings;
   const present = FONT_FILES.filter((file) => existsSync(file));
-  fontOptions =
+  const font: ResvgRenderOptions['font'] =
     present.length > 0
       ? { loadSystemFonts: false, fontFiles: present, defaultFontFamily: CHART_FONT_FAMILY, sansSerifFamily: CHART_FONT_FAMILY }
       : { loadSystemFonts: true, defaultFontFamily: CHART_FONT_FAMILY };
-  return fontOptions;
+  // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it.
+  const options: ResvgRenderOptions = { font, background: '#ffffff', shapeRendering: 2, textRendering: 1 };
+  settings = { options, key: JSON.stringify(options) };
+  return settings;
 }
 
-/** Rasterises one of our SVGs. A failure is a value: the message goes out without its picture. */
-export function rasterizeSvgToPng(svg: string): PngResult {
+/**
+ * Shared by every channel and platform in the process. 64 pictures and 24 MB hold a few dozen
+ * places' charts and skew-Ts for the current forecast run; a new run makes new SVGs, new keys.
+ */
+const sharedCache = new PngCache({ maxEntries: 64, maxBytes: 24 * 1024 * 1024 });
+let rasterizedCount = 0;
+
+/**
+ * Rasterises one of our SVGs, or hands back the same picture made earlier from the same SVG text.
+ * Rasterising is the slow part of an answer (tens to hundreds of ms, on the event loop); a failure
+ * is a value: the message goes out without its picture (and nothing is cached).
+ */
+export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): PngResult {
+  const { options, key: settingsKey } = renderSettings();
+  const key = PngCache.keyOf(svg, settingsKey);
+  const cached = cache.get(key);
+  if (cached) return { ok: true, ...cached };
   try {
-    const rendered = new Resvg(svg, { font: fonts(), background: '#ffffff', shapeRendering: 2, textRendering: 1 }).render();
-    const png = new Uint8Array(rendered.asPng());
-    return { ok: true, png, widthPx: rendered.width, heightPx: rendered.height };
+    rasterizedCount += 1;
+    const rendered = new Resvg(svg, options).render();
+    const picture = { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height };
+    cache.set(key, picture);
+    return { ok: true, ...picture };
   } catch (error) {
     return { ok: false, reason: `could not draw the image: ${error instanceof Error ? error.message : String(error)}` };
   }
+}
+
+/** For the benchmarks: pictures actually rasterised in this process, and answers taken from the shared cache. */
+export function rasterizeCacheStats(): { rasterized: number; hits: number; entries: number; bytes: number } {
+  return { rasterized: rasterizedCount, hits: sharedCache.stats.hits, entries: sharedCache.size, bytes: sharedCache.bytes };
+}
+
+/** Empties the shared cache, so that a benchmark run starts with no finished picture. */
+export function resetRasterizeCache(): void {
+  sharedCache.clear();
 }

@@ -289,7 +289,24 @@ export function drawSkewTSvg(analysis: AnalysisResult, options: SkewTOptions, fr
   ].join('\n');
 }
 
+/**
+ * Diagrams already drawn, by analysis object and options. A cached forecast's detail assessment is
+ * one object for every channel that asks (analyses are never changed once made), so the same
+ * hour's diagram is drawn once.
+ */
+const drawnDiagrams = new WeakMap<AnalysisResult, Map<string, string>>();
+
+function skewTSvgOnce(analysis: AnalysisResult, options: SkewTOptions): string {
+  // Every option, by name: one added later is part of the key without anyone remembering to add it.
+  const key = JSON.stringify(options, Object.keys(options).sort());
+  let byOptions = drawnDiagrams.get(analysis);
+  if (!byOptions) drawnDiagrams.set(analysis, (byOptions = new Map()));
+  let svg = byOptions.get(key);
+  if (svg === undefined) byOptions.set(key, (svg = drawSkewTSvg(analysis, options)));
+  return svg;
+}
+
 export function drawSkewTPng(analysis: AnalysisResult, options: SkewTOptions): PngResult {
-  return rasterizeSvgToPng(drawSkewTSvg(analysis, options));
+  return rasterizeSvgToPng(skewTSvgOnce(analysis, options));
 }
 

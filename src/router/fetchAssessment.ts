@@ -1,4 +1,4 @@
-import type { ForecastLocation } from '../forecast/forecastSource.ts';
+import type { ForecastLocation, ForecastSeries } from '../forecast/forecastSource.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import type { ResolvedPlace } from './resolvePlace.ts';
@@ -7,6 +7,37 @@ import type { HandlerContext } from './routerContext.ts';
 export type AssessmentResult = { ok: true; series: SeriesAssessment } | { ok: false; error: string };
 
 const HOUR_MS = 3_600_000;
+
+/**
+ * A cached forecast comes back as the same series object to every channel that asks until the next
+ * run, and assessing it is a pure function of it: assess it once. Lookup assessments (small) live
+ * exactly as long as their series, in a WeakMap; assessments that keep every hour's full analysis
+ * (several times the series' own size, for the detail view) only for the few latest series.
+ */
+const lookupAssessments = new WeakMap<ForecastSeries, SeriesAssessment>();
+const detailAssessments = new Map<ForecastSeries, SeriesAssessment>();
+const MAX_DETAIL_ASSESSMENTS = 8;
+
+function assessOnce(series: ForecastSeries, keepAnalysis: boolean): SeriesAssessment {
+  if (!keepAnalysis) {
+    const known = lookupAssessments.get(series);
+    if (known) return known;
+    const assessed = assessSeries(series, { keepAnalysis: false });
+    lookupAssessments.set(series, assessed);
+    return assessed;
+  }
+  const known = detailAssessments.get(series);
+  if (known) {
+    // Most recently used last, so the first key is the one to drop.
+    detailAssessments.delete(series);
+    detailAssessments.set(series, known);
+    return known;
+  }
+  const assessed = assessSeries(series, { keepAnalysis: true });
+  detailAssessments.set(series, assessed);
+  if (detailAssessments.size > MAX_DETAIL_ASSESSMENTS) detailAssessments.delete(detailAssessments.keys().next().value as ForecastSeries);
+  return assessed;
+}
 
 /**
  * The next hours of forecast for a place, assessed. A failure of the source is an error a person can
@@ -26,5 +57,5 @@ export async function fetchAssessment(
   const startMs = Math.floor((options.startMs ?? context.nowMs()) / HOUR_MS) * HOUR_MS;
   const result = await context.source.fetchSeries(location, { startTime: new Date(startMs).toISOString(), hours: context.forecastHours });
   if (!result.ok) return { ok: false, error: `No forecast for ${place.displayName}: ${result.error.message} Nothing is assumed; try again shortly.` };
-  return { ok: true, series: assessSeries(result.series, { keepAnalysis: options.keepAnalysis }) };
+  return { ok: true, series: assessOnce(result.series, options.keepAnalysis) };
 }

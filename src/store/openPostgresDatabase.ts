@@ -34,6 +34,9 @@ export function openPostgresDatabase(options: OpenPostgresOptions): { db: Kysely
     types: typeParsers as pg.CustomTypesConfig,
   });
   pool.on('error', (error) => options.onIdleConnectionError?.(error));
+  // A server restart also errors connections that are checked out; without a listener that error
+  // would crash the process. The query in flight fails (the caller retries) and the pool replaces it.
+  pool.on('connect', (client) => client.on('error', (error) => options.onIdleConnectionError?.(error)));
   const db = new Kysely<StoreDatabase>({ dialect: new PostgresDialect({ pool }) });
   return { db, pool };
 }

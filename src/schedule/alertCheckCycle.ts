@@ -1,0 +1,375 @@
+/**
+ * One alert-check cycle: the integration of forecast, watch, render and store, kept in this one
+ * file so that names can be fixed in one place as those parts settle.
+ *
+ * For each watched place that is due (see alertCheckDue.ts) and that this replica wins the job for:
+ *  1. fetch its forecast ONCE, however many channels watch it (watches are grouped by location key,
+ *     and `deps.fetchSeries` is the forecast cache, so a later cycle on the same model run costs no
+ *     request either);
+ *  2. assess the series once;
+ *  3. compute crossings once per distinct rule set (channels on the default rules share one);
+ *  4. for each crossing, the channels that have not muted that rule there get one message each,
+ *     written with the crossing record in one transaction (`recordCrossingWithOutbox`); a crossing
+ *     already announced is re-announced only when `deps.isMaterialUpdate` says so
+ *     (`recordCrossingUpdate`);
+ *  5. mark the place checked and complete the job.
+ * A replica that dies mid-job leaves the job to another once its lease (60 s) runs out; rows it
+ * wrote are whole transactions, so a re-run finds them and writes nothing twice.
+ *
+ * Payloads: the rendered Message with its images base64-encoded (outboxPayload.ts); an image too
+ * large to queue is dropped with a note.
+ */
+import type { Logger } from 'pino';
+import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastWindow } from '../forecast/forecastSource.ts';
+import type { Message } from '../render/message.ts';
+import type { AlertRecord, Channel, Crossing, Mute, OutgoingMessage, Store, WatchWithChannel } from '../store/storeTypes.ts';
+import { ALL_LOCATIONS } from '../store/storeTypes.ts';
+import type { Rule, RuleId } from '../watch/rules/rule.ts';
+import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
+import type { Crossing as WatchCrossing } from '../watch/crossings/crossing.ts';
+import { assessSeries } from '../watch/assessSeries.ts';
+import { findCrossings } from '../watch/crossings/findCrossings.ts';
+import { isMaterialUpdate } from '../watch/crossings/isMaterialUpdate.ts';
+import { buildAlertMessage, formatAlertValue, type AlertContent, type AlertValueKind } from '../render/alertMessage.ts';
+import { messageToPayload } from '../delivery/outboxPayload.ts';
+import { dueAlertChecks, groupWatchesByLocation, type DueAlertCheck } from './alertCheckDue.ts';
+import { mapWithConcurrency } from './mapWithConcurrency.ts';
+import { channelRuleSet, type ChannelRuleSet } from './ruleSet.ts';
+
+export interface AlertRenderInput {
+  crossing: WatchCrossing;
+  /** The store's key for the place (also the mute button's place key). */
+  locationKey: string;
+  assessment: SeriesAssessment;
+  channel: Channel;
+  /** The channel's name for the place, or null for a bare point. */
+  placeName: string | null;
+  /** 0 for a first announcement, higher for a material update. */
+  revision: number;
+}
+
+/** What the cycle needs from the forecast, watch and render parts (`realAlertCheckDeps` wires the real ones). */
+export interface AlertCheckDeps {
+  /** The forecast cache's fetch (single-flight, keyed by location, model and run). */
+  fetchSeries(location: ForecastLocation, window: ForecastWindow): Promise<ForecastResult>;
+  assess(series: ForecastSeries): SeriesAssessment;
+  /** The configured default rules (config/rules.yaml). */
+  defaultRules: readonly Rule[];
+  findCrossings(current: SeriesAssessment, rules: readonly Rule[], previous?: SeriesAssessment): WatchCrossing[];
+  isMaterialUpdate(previous: WatchCrossing, next: WatchCrossing): boolean;
+  renderAlert(input: AlertRenderInput): Message;
+  /** The newest model run the source knows of, when it can say without a full fetch. */
+  latestRunTime?(): Promise<string | null>;
+}
+
+const VALUE_KIND: Record<RuleId, AlertValueKind> = {
+  'mixing-reaches-dry-layer': 'height',
+  'effective-mixing-height-above': 'height',
+  'hdw-above': 'hdw',
+  'c-haines-above': 'c-haines',
+  'pft-below': 'pft',
+  'mixed-layer-rh-below': 'relative-humidity',
+  'transport-wind-above': 'wind-speed',
+  'plume-cloud-possible': 'height',
+};
+
+/**
+ * The headline rule's value is "mixing height minus the dry layer's base"; a crew reads heights, so
+ * the alert shows the mixing height against the base, and how deep mixing runs once they meet.
+ */
+function headlineFigures(input: AlertRenderInput): Pick<AlertContent, 'value' | 'threshold' | 'thresholdLabel' | 'consequenceLine' | 'quantityLabel'> | null {
+  const hour = input.assessment.hours.find((candidate) => candidate.validTime === input.crossing.validTime);
+  const baseAglM = hour?.dryLayerAloftBaseAglM ?? hour?.coupledLayer?.baseAglM ?? null;
+  if (!hour || baseAglM === null) return null;
+  const effective = formatAlertValue(hour.effectiveMixingHeightAglM, 'height', input.channel.unitSystem);
+  return {
+    value: hour.mixingHeightAglM,
+    threshold: baseAglM,
+    quantityLabel: 'Mixing height',
+    thresholdLabel: 'the base of the dry layer aloft',
+    consequenceLine: `Once they meet, mixing runs to ${effective}.`,
+  };
+}
+
+/** The alert content for one channel: its units, its name for the place. */
+export function alertContentOf(input: AlertRenderInput): AlertContent {
+  const { crossing, assessment } = input;
+  const onsetLike = crossing.direction !== 'end';
+  const above = crossing.comparison === 'at-or-above';
+  const headline = crossing.ruleId === 'mixing-reaches-dry-layer' ? headlineFigures(input) : null;
+  return {
+    ...(headline ?? {}),
+    ruleId: crossing.ruleId,
+    ruleName: crossing.ruleName,
+    severity: crossing.severity,
+    placeName: input.placeName ?? assessment.location.name ?? `${assessment.location.latitude.toFixed(3)}, ${assessment.location.longitude.toFixed(3)}`,
+    latitude: assessment.location.latitude,
+    longitude: assessment.location.longitude,
+    placeKey: input.locationKey,
+    timeZone: assessment.timeZone,
+    validTime: crossing.validTime,
+    value: headline?.value ?? crossing.value ?? crossing.threshold,
+    valueKind: VALUE_KIND[crossing.ruleId],
+    threshold: headline?.threshold ?? crossing.threshold,
+    direction: onsetLike === above ? 'rising' : 'falling',
+    model: assessment.model,
+    runTime: assessment.runTime,
+    sourceName: assessment.sourceName,
+    invented: assessment.invented,
+  };
+}
+
+/** The real forecast-to-message chain: assessSeries, findCrossings, isMaterialUpdate, buildAlertMessage. */
+export function realAlertCheckDeps(options: {
+  fetchSeries: AlertCheckDeps['fetchSeries'];
+  defaultRules: readonly Rule[];
+  latestRunTime?: () => Promise<string | null>;
+  footerLocalLine?: string;
+}): AlertCheckDeps {
+  return {
+    fetchSeries: options.fetchSeries,
+    assess: (series) => assessSeries(series),
+    defaultRules: options.defaultRules,
+    findCrossings,
+    isMaterialUpdate,
+    renderAlert: (input) =>
+      buildAlertMessage(alertContentOf(input), input.channel.unitSystem, {
+        ...(options.footerLocalLine !== undefined ? { footerLocalLine: options.footerLocalLine } : {}),
+      }),
+    ...(options.latestRunTime ? { latestRunTime: options.latestRunTime } : {}),
+  };
+}
+
+/** The store's view of a watch crossing: onset and worsened are the rule turning on ('up'). */
+export function storeCrossingOf(found: WatchCrossing, locationKey: string, ruleKey: string): Crossing {
+  return {
+    locationKey,
+    ruleId: ruleKey,
+    validLocalDay: found.localDate,
+    direction: found.direction === 'end' ? 'down' : 'up',
+    validTime: found.validTime,
+    // An end with no value (the dry layer is gone) records the threshold it fell back past.
+    value: found.value ?? found.threshold,
+    effectiveDepthM: found.episodePeakEffectiveMixingHeightAglM,
+  };
+}
+
+/** The announced version of a crossing, as the watch module compares them. */
+function announcedAsWatchCrossing(record: AlertRecord, next: WatchCrossing): WatchCrossing {
+  return { ...next, validTime: record.validTime, value: record.value, episodePeakEffectiveMixingHeightAglM: record.effectiveDepthM ?? 0 };
+}
+
+export interface AlertCheckCycleOptions {
+  store: Pick<Store, 'watches' | 'rules' | 'alerts' | 'jobs'>;
+  deps: AlertCheckDeps;
+  workerId: string;
+  logger: Logger;
+  intervalMs?: number;
+  forecastHours?: number;
+  /** Places fetched at once. */
+  fetchConcurrency?: number;
+  jobLeaseMs?: number;
+  /** After a failed fetch a place waits this long before its next try. */
+  fetchFailureRetryMs?: number;
+}
+
+export interface AlertCheckReport {
+  placesWatched: number;
+  placesDue: number;
+  placesChecked: number;
+  jobsBusyOrDone: number;
+  forecastRequests: number;
+  forecastFailures: number;
+  crossingsFound: number;
+  crossingsRecorded: number;
+  updatesRecorded: number;
+  duplicates: number;
+  messagesQueued: number;
+  mutedSkips: number;
+  /** Ends of events never announced as onsets on the same local day: not told. */
+  endsNotAnnounced: number;
+  errors: number;
+}
+
+export interface AlertCheckCycle {
+  run(nowMs: number): Promise<AlertCheckReport>;
+}
+
+function emptyReport(): AlertCheckReport {
+  return {
+    placesWatched: 0, placesDue: 0, placesChecked: 0, jobsBusyOrDone: 0, forecastRequests: 0, forecastFailures: 0,
+    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
+  };
+}
+
+function isMuted(mutes: readonly Mute[], ruleId: string, locationKey: string): boolean {
+  return mutes.some((m) => m.ruleId === ruleId && (m.locationKey === locationKey || m.locationKey === ALL_LOCATIONS));
+}
+
+function forecastWindowAt(nowMs: number, hours: number): ForecastWindow {
+  const hourStartMs = Math.floor(nowMs / 3_600_000) * 3_600_000;
+  return { startTime: new Date(hourStartMs).toISOString(), hours };
+}
+
+function locationOf(watch: WatchWithChannel): ForecastLocation {
+  return {
+    latitude: watch.latitudeDeg,
+    longitude: watch.longitudeDeg,
+    ...(watch.elevationM !== null ? { elevationM: watch.elevationM } : {}),
+    ...(watch.placeName !== null ? { name: watch.placeName } : {}),
+  };
+}
+
+export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertCheckCycle {
+  const { store, deps, workerId, logger } = options;
+  const forecastHours = options.forecastHours ?? 48;
+  const jobLeaseMs = options.jobLeaseMs ?? 60_000;
+  const fetchFailureRetryMs = options.fetchFailureRetryMs ?? 5 * 60_000;
+  /** Model run each place's last check used (this process's memory; a restart checks on interval). */
+  const lastSeenRunTime = new Map<string, string>();
+  const retryNotBeforeMs = new Map<string, number>();
+  /** Each place's last assessment (without per-hour analyses), for run-to-run worsenings. */
+  const lastAssessment = new Map<string, SeriesAssessment>();
+
+  async function channelContext(channelRef: string, nowMs: number, cache: Map<string, Promise<{ ruleSet: ChannelRuleSet; mutes: Mute[] }>>) {
+    let pending = cache.get(channelRef);
+    if (!pending) {
+      pending = Promise.all([store.rules.listOverrides(channelRef), store.rules.listActiveMutes(channelRef, nowMs)]).then(
+        ([overrides, mutes]) => ({ ruleSet: channelRuleSet(deps.defaultRules, overrides), mutes }),
+      );
+      cache.set(channelRef, pending);
+    }
+    return pending;
+  }
+
+  async function announce(
+    found: WatchCrossing,
+    crossing: Crossing,
+    recipients: WatchWithChannel[],
+    assessment: SeriesAssessment,
+    nowMs: number,
+    report: AlertCheckReport,
+  ): Promise<void> {
+    const render = (revision: number): OutgoingMessage[] =>
+      recipients.map((watch) => ({
+        target: { platform: watch.channel.platform, teamId: watch.channel.teamId, channelId: watch.channel.channelId },
+        payload: messageToPayload(
+          deps.renderAlert({ crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision }),
+        ),
+      }));
+    const first = await store.alerts.recordCrossingWithOutbox(crossing, render(0), nowMs);
+    if (first.status === 'recorded') {
+      report.crossingsRecorded += 1;
+      report.messagesQueued += first.outboxIds.length;
+      logger.info(
+        { locationKey: crossing.locationKey, ruleId: crossing.ruleId, validLocalDay: crossing.validLocalDay, direction: crossing.direction, channels: first.outboxIds.length },
+        'crossing recorded and queued',
+      );
+      return;
+    }
+    const existing = first.existing;
+    if (!deps.isMaterialUpdate(announcedAsWatchCrossing(existing, found), found)) {
+      report.duplicates += 1;
+      return;
+    }
+    const update = await store.alerts.recordCrossingUpdate(crossing, existing.revision, render(existing.revision + 1), nowMs);
+    if (update.status === 'recorded') {
+      report.updatesRecorded += 1;
+      report.messagesQueued += update.outboxIds.length;
+      logger.info({ locationKey: crossing.locationKey, ruleId: crossing.ruleId, revision: update.record.revision }, 'material update queued');
+    } else {
+      report.duplicates += 1; // another replica updated it first
+    }
+  }
+
+  async function checkPlace(check: DueAlertCheck, nowMs: number, report: AlertCheckReport): Promise<void> {
+    const { locationKey, watches } = check;
+    report.forecastRequests += 1;
+    const result = await deps.fetchSeries(locationOf(watches[0]!), forecastWindowAt(nowMs, forecastHours));
+    if (!result.ok) {
+      report.forecastFailures += 1;
+      retryNotBeforeMs.set(locationKey, nowMs + fetchFailureRetryMs);
+      // Never an all-clear: the place stays due and is tried again after the pause.
+      logger.warn({ locationKey, kind: result.error.kind, reason: result.error.message }, 'forecast fetch failed; alert check postponed');
+      throw new Error(`forecast for ${locationKey}: ${result.error.message}`);
+    }
+    retryNotBeforeMs.delete(locationKey);
+    const assessment = deps.assess(result.series);
+    const previous = lastAssessment.get(locationKey);
+    const channelCache = new Map<string, Promise<{ ruleSet: ChannelRuleSet; mutes: Mute[] }>>();
+    const contexts = await Promise.all(watches.map((w) => channelContext(w.channelRef, nowMs, channelCache)));
+
+    // Channels with the same rules share one crossing computation.
+    const bySignature = new Map<string, { ruleSet: ChannelRuleSet; members: Array<{ watch: WatchWithChannel; mutes: Mute[] }> }>();
+    watches.forEach((watch, i) => {
+      const { ruleSet, mutes } = contexts[i]!;
+      const group = bySignature.get(ruleSet.signature) ?? { ruleSet, members: [] };
+      group.members.push({ watch, mutes });
+      bySignature.set(ruleSet.signature, group);
+    });
+
+    for (const { ruleSet, members } of bySignature.values()) {
+      const enabled = ruleSet.rules.filter((r) => r.enabled);
+      // The previous run's assessment (same place, older run) lets the watch report worsenings.
+      const earlier = previous && previous.runTime !== assessment.runTime ? previous : undefined;
+      for (const found of deps.findCrossings(assessment, enabled, earlier)) {
+        report.crossingsFound += 1;
+        const recipients = members.filter(({ mutes }) => !isMuted(mutes, found.ruleId, locationKey)).map((m) => m.watch);
+        report.mutedSkips += members.length - recipients.length;
+        // Nobody listening: record nothing, so the event can still be told when a mute ends.
+        if (recipients.length === 0) continue;
+        const crossing = storeCrossingOf(found, locationKey, ruleSet.crossingRuleKey.get(found.ruleId) ?? found.ruleId);
+        // Ends are not pushed: "the dry air has gone" read in a channel is an all-clear, and an
+        // all-clear is the forecaster's call. Lookups and the morning summary show when a rule eases.
+        if (crossing.direction === 'down') {
+          report.endsNotAnnounced += 1;
+          continue;
+        }
+        await announce(found, crossing, recipients, assessment, nowMs, report);
+      }
+    }
+    lastSeenRunTime.set(locationKey, result.series.runTime);
+    lastAssessment.set(locationKey, assessment);
+  }
+
+  async function run(nowMs: number): Promise<AlertCheckReport> {
+    const report = emptyReport();
+    const groups = groupWatchesByLocation(await store.watches.listActiveWatchesWithChannel());
+    report.placesWatched = groups.size;
+    let latestRunTime: string | null = null;
+    if (deps.latestRunTime) {
+      try {
+        latestRunTime = await deps.latestRunTime();
+      } catch (error) {
+        logger.warn({ err: error instanceof Error ? error.message : String(error) }, 'could not learn the latest model run; checking on interval');
+      }
+    }
+    const due = dueAlertChecks({ nowMs, groups, intervalMs: options.intervalMs, lastSeenRunTime, latestRunTime, retryNotBeforeMs });
+    report.placesDue = due.length;
+    await mapWithConcurrency(due, options.fetchConcurrency ?? 16, async (check) => {
+      const claim = await store.jobs.claimJob(check.jobKey, workerId, jobLeaseMs, nowMs).catch((error: unknown) => {
+        report.errors += 1;
+        logger.warn({ jobKey: check.jobKey, err: String(error) }, 'could not claim an alert-check job');
+        return null;
+      });
+      if (claim === null) return;
+      if (claim.status !== 'claimed') {
+        report.jobsBusyOrDone += 1;
+        return;
+      }
+      try {
+        await checkPlace(check, nowMs, report);
+        await store.watches.markAlertChecked(check.locationKey, nowMs);
+        await store.jobs.completeJob(check.jobKey, workerId, nowMs);
+        report.placesChecked += 1;
+      } catch (error) {
+        report.errors += 1;
+        logger.warn({ locationKey: check.locationKey, err: error instanceof Error ? error.message : String(error) }, 'alert check failed; will retry');
+        await store.jobs.releaseJob(check.jobKey, workerId).catch(() => false);
+      }
+    });
+    return report;
+  }
+
+  return { run };
+}

@@ -1,0 +1,101 @@
+// One alert-check cycle end to end: the invented demo forecast, the real assessment, crossings and
+// alert messages, a real SQLite store. Two replicas tick at the same instant.
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { createAlertCheckCycle, realAlertCheckDeps } from '../../src/schedule/alertCheckCycle.ts';
+import { channelRuleSet } from '../../src/schedule/ruleSet.ts';
+import { payloadToMessage } from '../../src/delivery/outboxPayload.ts';
+import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
+import { locationKeyOf } from '../../src/store/storeKeys.ts';
+import type { Store } from '../../src/store/storeTypes.ts';
+import { capturingLogger, openTempSqliteStore, slackTarget, discordTarget } from '../delivery/deliveryFixtures.ts';
+import { ALDER_SINK, KESTREL_BENCH, channelWatching, countingDemoSource, shippedRules } from './scheduleFixtures.ts';
+
+// 08:00 MDT on an invented July morning: the demo's first afternoon is ahead.
+const MORNING = Date.UTC(2031, 6, 14, 14, 0, 0);
+
+async function allOutbox(store: Store): Promise<Array<{ dedupeKey: string; target: string; payload: unknown }>> {
+  const rows = await store.outbox.claimDueOutbox('inspector', 10_000, 1, MORNING + 10 * 86_400_000);
+  return rows.map((r) => ({ dedupeKey: r.dedupeKey, target: `${r.target.platform}:${r.target.channelId}`, payload: r.payload }));
+}
+
+describe('alert-check cycle', () => {
+  let store: Store;
+  beforeEach(async () => {
+    ({ store } = await openTempSqliteStore('alertcycle'));
+  });
+  afterEach(async () => {
+    await store.close();
+  });
+
+  it('fetches each place once however many channels watch it, and queues one alert per channel', async () => {
+    const a = await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
+    await channelWatching(store, discordTarget('1300000000000000001'), [KESTREL_BENCH, ALDER_SINK], MORNING);
+    // Channel B mutes the headline rule at Kestrel Bench.
+    const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
+    await store.rules.setMute(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 6 * 3600_000, MORNING);
+
+    const source = countingDemoSource();
+    const deps = realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() });
+    const replicas = ['replica-1', 'replica-2'].map((workerId) => createAlertCheckCycle({ store, deps, workerId, logger: capturingLogger().logger }));
+    const [r1, r2] = await Promise.all(replicas.map((cycle) => cycle.run(MORNING)));
+
+    expect(source.requests()).toBe(2); // two places, two replicas, four channels: two requests
+    expect(r1!.placesChecked + r2!.placesChecked).toBe(2);
+    const rows = await allOutbox(store);
+    const headline = rows.filter((r) => r.dedupeKey.includes('|mixing-reaches-dry-layer|') && r.dedupeKey.includes('|up|'));
+    const kestrelHeadline = headline.filter((r) => r.dedupeKey.includes(kestrelKey));
+    // A and the Discord channel get the Kestrel Bench coupling alerts (one per scenario day); B muted it.
+    const perTarget = new Map<string, number>();
+    for (const r of kestrelHeadline) perTarget.set(r.target, (perTarget.get(r.target) ?? 0) + 1);
+    expect([...perTarget.keys()].sort()).toEqual(['discord:1300000000000000001', 'slack:C0AAA']);
+    expect(perTarget.get('slack:C0AAA')).toBeGreaterThanOrEqual(1);
+    expect(perTarget.get('slack:C0AAA')).toBe(perTarget.get('discord:1300000000000000001'));
+    expect(new Set(rows.map((r) => r.dedupeKey)).size).toBe(rows.length);
+    for (const row of rows) {
+      const decoded = payloadToMessage(row.payload);
+      expect(decoded.ok).toBe(true);
+      if (decoded.ok) expect(decoded.message.footer.startsWith(SAFETY_FOOTER)).toBe(true);
+    }
+    expect(a.id).not.toBe(b.id);
+  });
+
+  it('checks again only after the interval, and an unchanged forecast queues nothing new', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const first = await cycle.run(MORNING);
+    expect(first.crossingsRecorded).toBeGreaterThan(0);
+    expect((await cycle.run(MORNING + 10 * 60_000)).placesDue).toBe(0);
+    expect(source.requests()).toBe(1);
+    const again = await cycle.run(MORNING + 30 * 60_000);
+    expect(again.placesChecked).toBe(1);
+    expect(again.crossingsRecorded).toBe(0);
+    expect(again.messagesQueued).toBe(0);
+  });
+
+  it('a newer model run makes a place due before the interval', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [ALDER_SINK], MORNING);
+    const source = countingDemoSource();
+    let latest: string | null = null;
+    const deps = { ...realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), latestRunTime: async () => latest };
+    const cycle = createAlertCheckCycle({ store, deps, workerId: 'w', logger: capturingLogger().logger });
+    await cycle.run(MORNING);
+    latest = '2031-07-14T12:00:00Z'; // the demo's run for this window
+    expect((await cycle.run(MORNING + 5 * 60_000)).placesDue).toBe(0); // not newer than the run used
+    latest = '2031-07-15T00:00:00Z';
+    const report = await cycle.run(MORNING + 6 * 60_000);
+    expect(report.placesDue).toBe(1);
+    expect(source.requests()).toBe(2);
+  });
+
+  it('a channel override gets its own crossing key; default channels share one', () => {
+    const defaults = shippedRules();
+    const plain = channelRuleSet(defaults, []);
+    const changed = channelRuleSet(defaults, [{ channelRef: 'c', ruleId: 'hdw-above', thresholdValue: 300, hysteresisValue: null, updatedAtMs: 0 }]);
+    expect(plain.crossingRuleKey.get('hdw-above')).toBe('hdw-above');
+    expect(changed.crossingRuleKey.get('hdw-above')).toMatch(/^hdw-above@300\//);
+    expect(changed.signature).not.toBe(plain.signature);
+    expect(channelRuleSet(defaults, []).signature).toBe(plain.signature);
+  });
+});
