@@ -1,10 +1,6 @@
-import tzLookup from 'tz-lookup';
 import { DateTime } from 'luxon';
 
-/** The IANA time zone at a point, offline (tz-lookup); "Etc/GMT±n" over the open sea. */
-export function timeZoneAt(latitude: number, longitude: number): string {
-  return tzLookup(latitude, longitude);
-}
+export { timeZoneAt } from '../geo/timeZoneAt.ts';
 
 export interface LocalClock {
   /** Local calendar date, YYYY-MM-DD. */

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { locationKeyOf } from '../store/storeKeys.ts';
 
 /**
  * Button values, written here and parsed back by the router. Kept short: Discord's custom_id
@@ -6,11 +7,9 @@ import { z } from 'zod';
  *   show-detail: "LAT,LON|VALID_TIME"   e.g. "44.8123,-115.4321|2026-08-14T21:00:00Z"
  *   mute-rule:   "RULE_ID|PLACE_KEY"    e.g. "mixing-reaches-dry-layer|44.8123,-115.4321"
  */
-const coordinate = (value: number): string => (Math.round(value * 1e4) / 1e4).toString();
-
-/** A place's key: its point to four decimals (about 11 m), stable however the place is named. */
+/** A place's key: its point to four decimals (about 11 m), the same key the store gives the place. */
 export function placeKeyOf(latitude: number, longitude: number): string {
-  return `${coordinate(latitude)},${coordinate(longitude)}`;
+  return locationKeyOf(latitude, longitude);
 }
 
 export function encodeDetailValue(latitude: number, longitude: number, validTime: string): string {

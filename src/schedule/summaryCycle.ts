@@ -11,7 +11,7 @@ import type { Message } from '../render/message.ts';
 import type { Channel, Store, WatchWithChannel } from '../store/storeTypes.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
-import { timeZoneAt } from '../watch/time/timeZoneAt.ts';
+import { timeZoneAt } from '../geo/timeZoneAt.ts';
 import { buildMorningSummary } from '../render/summaryMessage.ts';
 import { buildMessage } from '../render/safetyFooter.ts';
 import { messageToPayload } from '../delivery/outboxPayload.ts';

@@ -6,7 +6,7 @@ import { markCouplingAloft } from './dryLayerAloft.ts';
 import { hourFromAnalysis } from './hourFromAnalysis.ts';
 import type { HourAssessment, HourGap, SeriesAssessment } from './seriesAssessment.ts';
 import { localClock } from './time/localClock.ts';
-import { timeZoneAt } from './time/timeZoneAt.ts';
+import { timeZoneAt } from '../geo/timeZoneAt.ts';
 
 const HOUR_MS = 3_600_000;
 /** Caps the gap list when a source leaves out a long stretch (a gap list longer than a forecast helps no one). */

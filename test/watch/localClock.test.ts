@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import { localClock, localDateOf } from '../../src/watch/time/localClock.ts';
-import { timeZoneAt } from '../../src/watch/time/timeZoneAt.ts';
+import { timeZoneAt } from '../../src/geo/timeZoneAt.ts';
 
 describe('local time at a point', () => {
   it('finds the zone offline from latitude and longitude', () => {
