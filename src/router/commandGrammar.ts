@@ -36,7 +36,7 @@ export const COMMAND_EXAMPLES: Record<Verb, { usage: string; example: string; wh
   unwatch: { usage: 'unwatch PLACE|LAT,LON', example: 'unwatch Cinder Ridge', what: 'alerts off for a place' },
   watching: { usage: 'watching', example: 'watching', what: 'what this channel watches' },
   rules: { usage: 'rules', example: 'rules', what: "alert rules and this channel's thresholds" },
-  threshold: { usage: 'threshold RULE VALUE|default', example: 'threshold hdw-high 300', what: "change a rule's threshold for this channel" },
+  threshold: { usage: 'threshold RULE VALUE|default', example: 'threshold hdw-above 300', what: "change a rule's threshold for this channel" },
   morning: { usage: 'morning HH:MM|off', example: 'morning 06:30', what: 'morning summary time (local to each place)' },
   units: { usage: 'units us|metric', example: 'units us', what: 'units for this channel' },
   help: { usage: 'help', example: 'help', what: 'this list' },

@@ -21,15 +21,15 @@ describe('parseCommand', () => {
     expect(parseCommand('morning 6:30')).toEqual({ ok: true, command: { verb: 'morning', localTime: '06:30' } });
     expect(parseCommand('morning off')).toEqual({ ok: true, command: { verb: 'morning', localTime: null } });
     expect(parseCommand('units US')).toEqual({ ok: true, command: { verb: 'units', unitSystem: 'us' } });
-    expect(parseCommand('threshold hdw-high 300')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-high', value: 300 } });
-    expect(parseCommand('threshold hdw-high default')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-high', value: 'default' } });
+    expect(parseCommand('threshold hdw-above 300')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-above', value: 300 } });
+    expect(parseCommand('threshold hdw-above default')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-above', value: 'default' } });
     expect(parseCommand('')).toEqual({ ok: true, command: { verb: 'help' } });
   });
 
   it.each([
     ['morning 25:00', /"morning": "25:00" is not a time of day.*Try: `morning 06:30`/],
     ['units furlongs', /"units": choose "us".*Try: `units us`/],
-    ['threshold hdw-high lots', /"threshold": "lots" is not a number/],
+    ['threshold hdw-above lots', /"threshold": "lots" is not a number/],
     ['save Cinder Ridge', /"save": a name and then a point/],
     ['95N 10E', /Lookup: latitude 95 is outside/],
     ['places now', /"places": takes nothing after it/],

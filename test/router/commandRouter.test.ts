@@ -8,6 +8,7 @@ import { FileSource } from '../../src/forecast/fileSource.ts';
 import { encodeForTerminal } from '../../src/render/encodeTerminal.ts';
 import type { Message } from '../../src/render/message.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
+import { COMMAND_EXAMPLES } from '../../src/router/commandGrammar.ts';
 import { createCommandRouter } from '../../src/router/createCommandRouter.ts';
 import type { RouterDependencies } from '../../src/router/routerContext.ts';
 import type { CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
@@ -158,4 +159,16 @@ describe('the command router', () => {
     expect(message.title).toMatch(/No forecast for 44.80°N 115.40°W/);
     rmSync(empty, { recursive: true, force: true });
   });
+
+  it('runs every example that help shows, in a channel of its own, without an error', async () => {
+    for (const [verb, { example }] of Object.entries(COMMAND_EXAMPLES)) {
+      const prepared = verb === 'forget' || verb === 'unwatch' || verb === 'detail' || verb === 'watch' ? [`save Cinder Ridge 43.62,-115.48`] : [];
+      const channelId = `examples-${verb}`;
+      for (const text of prepared) await router.handleCommand(request(text, { channelId }));
+      if (verb === 'unwatch') await router.handleCommand(request('watch Cinder Ridge', { channelId }));
+      const message = await router.handleCommand(request(example, { channelId }));
+      expect(message.kind, `${verb}: ${message.title}`).not.toBe('error');
+    }
+  });
 });
+
