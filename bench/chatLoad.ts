@@ -3,8 +3,11 @@
 // latency (median, p95, p99) and the share acknowledged inside Slack's and Discord's 3 s, for the
 // real command router (SQLite store, demo source behind the forecast cache, shipped rules, images on)
 // and, side by side, for the router double (fixed answer with a tiny PNG), so the figures separate
-// what the adapters cost from what the router and its pictures cost.
-// Run: npx tsx bench/chatLoad.ts [--real-only]. Bounded: each run stops at its deadline whatever happens.
+// what the adapters cost from what the router and its pictures cost. The platform stand-ins and the
+// load generator run in a child process (chatLoadProcess.ts), so this process holds only the bot
+// (the Bolt app or the discord.js client, and the router): its CPU and memory are the bot's.
+// Run: npx tsx bench/chatLoad.ts [--real-only]. Bounded: each run stops at its deadline whatever
+// happens, and the child stops itself after 150 s.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -28,9 +31,8 @@ import type { CommandRouter } from '../src/router/routerTypes.ts';
 import { openStore } from '../src/store/openStore.ts';
 import { loadRulesFile } from '../src/watch/rules/loadRules.ts';
 import { RouterDouble } from '../test/adapters/routerDouble.ts';
-import { startSlackStandIn } from '../test/adapters/slackStandIn.ts';
-import { postSigned, slashCommandForm } from '../test/adapters/slackSigning.ts';
-import { standInApplicationId, startDiscordStandIn } from '../test/adapters/discordStandIn.ts';
+import { memorySampler, startChild, type ChildLink } from './childLink.ts';
+import type { LoadAnswer, LoadRequest } from './chatLoadProcess.ts';
 
 type RouterKind = 'real' | 'double';
 type PlatformName = 'slack' | 'discord';
@@ -52,14 +54,10 @@ interface Sample {
   fullMs: number;
 }
 
-interface RunResult {
+interface RunResult extends Measured {
   router: RouterKind;
   platform: PlatformName;
   total: number;
-  samples: Sample[];
-  failures: number;
-  wallMs: number;
-  cpuMsPerCommand: number;
   loadAverage1m: number;
   /** What the router answered: kinds and pictures, so a run of error replies cannot pass for a fast one. */
   answers: string;
@@ -127,12 +125,8 @@ async function realRouter(): Promise<RouterUnderLoad> {
   };
 }
 
-/**
- * Passes every call through unchanged and notes what came back, keyed by channel: the Slack run
- * needs to know whether to wait for an upload, and the report says what was answered.
- */
+/** Passes every call through unchanged and notes what came back, so the report says what was answered. */
 class AnswerLog implements CommandRouter {
-  readonly byChannel = new Map<string, Message>();
   readonly kinds = new Map<string, number>();
   images = 0;
   /** The rasteriser's counters when timing started (after the warm-up). */
@@ -142,18 +136,17 @@ class AnswerLog implements CommandRouter {
 
   async handleCommand(request: Parameters<CommandRouter['handleCommand']>[0]): Promise<Message> {
     const message = await this.inner.handleCommand(request);
-    this.note(request.channelId, message);
+    this.note(message);
     return message;
   }
 
   async handleAction(request: Parameters<CommandRouter['handleAction']>[0]): Promise<Message> {
     const message = await this.inner.handleAction(request);
-    this.note(request.channelId, message);
+    this.note(message);
     return message;
   }
 
-  private note(channelId: string, message: Message): void {
-    this.byChannel.set(channelId, message);
+  private note(message: Message): void {
     this.kinds.set(message.kind, (this.kinds.get(message.kind) ?? 0) + 1);
     this.images += message.images.length;
   }
@@ -176,116 +169,74 @@ function percentile(sorted: number[], p: number): number {
   return sorted[rank]!;
 }
 
-/** Runs `count` jobs, `concurrency` at a time (one job at a time per worker), stopping new ones at the deadline. */
-async function pool(count: number, concurrency: number, deadline: number, job: (index: number, workerId: number) => Promise<void>): Promise<void> {
-  let next = 0;
-  const worker = async (_: unknown, workerId: number) => {
-    while (next < count && Date.now() < deadline) await job(next++, workerId);
-  };
-  await Promise.all(Array.from({ length: concurrency }, worker));
-}
-
-function waitUntil(promise: Promise<number>, deadline: number): Promise<number> {
-  return Promise.race([promise, new Promise<number>((_, reject) => setTimeout(() => reject(new Error('deadline')), Math.max(0, deadline - Date.now())).unref())]);
-}
-
 interface Measured {
   samples: Sample[];
   failures: number;
   wallMs: number;
+  /** This process's CPU (the bot alone) per answered command. */
   cpuMsPerCommand: number;
+  /** This process's rss high-water mark during the timed commands (sampled every 25 ms). */
+  botPeakRssMb: number;
+  /** The child's CPU (stand-in and load generator) per answered command, for comparison. */
+  childCpuMsPerCommand: number;
+  firstFailure: string | null;
 }
 
-/** Times the pool and the process CPU it used (adapter, library, stand-in, router and load generator share this process). */
-async function measure(options: Required<ChatLoadOptions>, job: (index: number, workerId: number, deadline: number) => Promise<Sample>): Promise<Measured> {
-  const samples: Sample[] = [];
-  let failures = 0;
-  const started = performance.now();
+/**
+ * The untimed warm-up, then the timed commands, both fired by the child; the bot's CPU and memory
+ * are read here, around the timed part only.
+ */
+async function driveLoad(child: ChildLink, log: AnswerLog, options: Required<ChatLoadOptions>, base: Omit<LoadRequest, 'texts' | 'total' | 'concurrency' | 'deadlineMs' | 'warmUp'>): Promise<Measured> {
+  const askTimeoutMs = options.deadlineMs + 10_000;
+  const warm = await child.ask<LoadAnswer>({ cmd: 'load', ...base, texts: WARM_UP_COMMANDS, total: WARM_UP_COMMANDS.length, concurrency: 1, deadlineMs: options.deadlineMs, warmUp: true }, askTimeoutMs);
+  if (warm.failures > 0) throw new Error(`warm-up failed: ${warm.firstFailure}`);
+  log.startTiming();
+  const memory = memorySampler(25);
   const cpuAtStart = process.cpuUsage();
-  const deadline = Date.now() + options.deadlineMs;
-  await pool(options.total, options.concurrency, deadline, async (index, workerId) => {
-    try {
-      samples.push(await job(index, workerId, deadline));
-    } catch {
-      failures += 1;
-    }
-  });
+  const timed = await child.ask<LoadAnswer>(
+    { cmd: 'load', ...base, texts: COMMAND_MIX, total: options.total, concurrency: options.concurrency, deadlineMs: options.deadlineMs, warmUp: false },
+    askTimeoutMs,
+  );
   const cpu = process.cpuUsage(cpuAtStart);
-  return { samples, failures, wallMs: performance.now() - started, cpuMsPerCommand: (cpu.user + cpu.system) / 1000 / Math.max(1, samples.length) };
+  const botPeakRssMb = memory.peakRssMb();
+  memory.stop();
+  return {
+    samples: timed.samples,
+    failures: timed.failures,
+    wallMs: timed.wallMs,
+    cpuMsPerCommand: (cpu.user + cpu.system) / 1000 / Math.max(1, timed.samples.length),
+    botPeakRssMb,
+    childCpuMsPerCommand: timed.cpuMsPerCommand,
+    firstFailure: timed.firstFailure,
+  };
 }
 
 async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>): Promise<Measured> {
   const secret = 'bench-signing-secret';
-  const standIn = await startSlackStandIn();
-  const slack = await startSlackApp({ router: log, botToken: 'xoxb-bench', signingSecret: secret, apiUrl: standIn.apiUrl, port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR });
-  // The full answer is the response-URL post and, when the answer has a picture, the finished upload into the channel.
-  const answered = new Map<string, (at: number) => void>();
-  const uploaded = new Map<string, (at: number) => void>();
-  standIn.onCall((call) => {
-    if (call.path.startsWith('/respond/')) answered.get(call.path.slice('/respond/'.length))?.(performance.now());
-    if (call.path === '/api/files.completeUploadExternal') uploaded.get(call.body?.channel_id)?.(performance.now());
-  });
-  const url = `http://127.0.0.1:${slack.port}/slack/events`;
-  // One channel per concurrent caller (20 incident channels asking again and again, as on a busy
-  // fire): a caller waits for its answer before asking again, so an upload is matched by its channel.
-  const send = async (index: number, channelId: string, text: string, deadline: number): Promise<Sample> => {
-    const key = index < 0 ? 'warm-up' : String(index);
-    const responded = new Promise<number>((resolve) => answered.set(key, resolve));
-    const imaged = new Promise<number>((resolve) => uploaded.set(channelId, resolve));
-    const t0 = performance.now();
-    const form = slashCommandForm(slackCommandName(), text, standIn.responseUrl(key), channelId);
-    const ack = await postSigned(url, form, { secret });
-    const ackAt = performance.now();
-    if (ack.status !== 200) throw new Error(`ack ${ack.status}`);
-    const respondedAt = await waitUntil(responded, deadline);
-    // The router has answered by the time the response URL is posted; its log says whether a picture follows.
-    const hasImage = (log.byChannel.get(channelId)?.images.length ?? 0) > 0;
-    const fullAt = hasImage ? Math.max(respondedAt, await waitUntil(imaged, deadline)) : respondedAt;
-    return { index, ackMs: ackAt - t0, fullMs: fullAt - t0 };
-  };
+  const child = await startChild('chatLoadProcess.ts', ['slack'], 30_000);
   try {
-    for (const text of WARM_UP_COMMANDS) await send(-1, 'CBENCHWARMUP', text, Date.now() + options.deadlineMs);
-    log.startTiming();
-    return await measure(options, (index, workerId, deadline) => send(index, `CBENCH${workerId}`, commandText(index), deadline));
+    const slack = await startSlackApp({ router: log, botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR });
+    try {
+      return await driveLoad(child, log, options, { commandName: slackCommandName(), botUrl: `http://127.0.0.1:${slack.port}/slack/events`, secret });
+    } finally {
+      await slack.stop();
+    }
   } finally {
-    await slack.stop();
-    await standIn.stop();
+    await child.stop();
   }
 }
 
 async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>): Promise<Measured> {
-  const standIn = await startDiscordStandIn();
-  const bot = await startDiscordBot({ router: log, token: 'bench.discord.token', applicationId: standInApplicationId, apiUrl: standIn.apiUrl, log: () => {} });
-  const deferred = new Map<string, (at: number) => void>();
-  const edited = new Map<string, (at: number) => void>();
-  standIn.onCall((call) => {
-    const callback = /\/interactions\/\d+\/([^/]+)\/callback$/.exec(call.path);
-    if (callback) deferred.get(callback[1]!)?.(performance.now());
-    const edit = /\/webhooks\/\d+\/([^/]+)\/messages\/@original$/.exec(call.path);
-    if (edit) edited.get(edit[1]!)?.(performance.now());
-  });
-  const send = async (index: number, text: string, deadline: number): Promise<Sample> => {
-    // Tokens are made by the stand-in; register the waiters under the token it will use.
-    let resolveAck!: (at: number) => void;
-    let resolveFull!: (at: number) => void;
-    const ack = new Promise<number>((resolve) => (resolveAck = resolve));
-    const full = new Promise<number>((resolve) => (resolveFull = resolve));
-    const t0 = performance.now();
-    const { token } = standIn.sendCommand(discordCommandName(), text);
-    deferred.set(token, resolveAck);
-    edited.set(token, resolveFull);
-    const ackAt = await waitUntil(ack, deadline);
-    // The edit carries the embed and its attachment in one request.
-    const fullAt = await waitUntil(full, deadline);
-    return { index, ackMs: ackAt - t0, fullMs: fullAt - t0 };
-  };
+  const child = await startChild('chatLoadProcess.ts', ['discord'], 30_000);
   try {
-    for (const text of WARM_UP_COMMANDS) await send(-1, text, Date.now() + options.deadlineMs);
-    log.startTiming();
-    return await measure(options, (index, _workerId, deadline) => send(index, commandText(index), deadline));
+    const bot = await startDiscordBot({ router: log, token: 'bench.discord.token', applicationId: String(child.hello.applicationId), apiUrl: String(child.hello.apiUrl), log: () => {} });
+    try {
+      return await driveLoad(child, log, options, { commandName: discordCommandName() });
+    } finally {
+      await bot.stop();
+    }
   } finally {
-    await bot.stop();
-    await standIn.stop();
+    await child.stop();
   }
 }
 
@@ -358,7 +309,7 @@ async function printPictureFigures(): Promise<void> {
 
 function printTable(results: RunResult[], concurrency: number): void {
   const ms = (n: number) => (Number.isFinite(n) ? n.toFixed(1) : '-').padStart(7);
-  const header = `${'platform'.padEnd(8)} ${'router'.padEnd(13)} │ ${'ack p50'.padStart(7)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} ${'max'.padStart(7)} ${'<3 s'.padStart(6)} │ ${'full p50'.padStart(8)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} │ ${'ok/total'.padStart(8)} ${'wall s'.padStart(6)} ${'CPU ms/cmd'.padStart(10)} ${'load 1m'.padStart(7)}`;
+  const header = `${'platform'.padEnd(8)} ${'router'.padEnd(13)} │ ${'ack p50'.padStart(7)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} ${'max'.padStart(7)} ${'<3 s'.padStart(6)} │ ${'full p50'.padStart(8)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} │ ${'ok/total'.padStart(8)} ${'wall s'.padStart(6)} ${'bot CPU ms/cmd'.padStart(14)} ${'load 1m'.padStart(7)}`;
   console.log(`\n${header}\n${'─'.repeat(header.length)}`);
   const row = (platform: string, label: string, samples: Sample[], total: number, rest: string) => {
     const acks = samples.map((s) => s.ackMs).sort((a, b) => a - b);
@@ -369,14 +320,17 @@ function printTable(results: RunResult[], concurrency: number): void {
     );
   };
   for (const r of results) {
-    row(r.platform, r.router, r.samples, r.total, `${(r.wallMs / 1000).toFixed(2).padStart(6)} ${r.cpuMsPerCommand.toFixed(2).padStart(10)} ${r.loadAverage1m.toFixed(2).padStart(7)}`);
+    row(r.platform, r.router, r.samples, r.total, `${(r.wallMs / 1000).toFixed(2).padStart(6)} ${r.cpuMsPerCommand.toFixed(2).padStart(14)} ${r.loadAverage1m.toFixed(2).padStart(7)}`);
     // The same run without its first wave, which is where the few cold pictures are rasterised.
     row('', `  after ${concurrency}`, r.samples.filter((s) => s.index >= concurrency), r.total - concurrency, '');
   }
   console.log('(milliseconds; "<3 s" is the share of all commands acknowledged inside 3 s, failures counting as not acknowledged;');
   console.log(` "after ${concurrency}" is the same run without its first ${concurrency} commands, i.e. once every picture has been made)`);
   console.log('Goals: every ack inside 3 s, ack p99 < 50 ms, full-answer p95 < 300 ms with the picture.');
-  for (const r of results) console.log(`  ${r.platform} ${r.router}: ${r.failures} failed; answers: ${r.answers}`);
+  for (const r of results) {
+    const failed = r.failures > 0 ? ` (first: ${r.firstFailure})` : '';
+    console.log(`  ${r.platform} ${r.router}: ${r.failures} failed${failed}; answers: ${r.answers}; bot rss high-water ${r.botPeakRssMb.toFixed(0)} MB; stand-in + load generator ${r.childCpuMsPerCommand.toFixed(2)} CPU ms/cmd (child process, not the bot's)`);
+  }
 }
 
 export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<void> {

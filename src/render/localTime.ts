@@ -11,16 +11,48 @@ function inZone(isoInstant: string, timeZone: string): DateTime {
   return local.isValid ? local : instant.toUTC();
 }
 
+/** Formatters for zone abbreviations, by locale and zone; bounded, since zone names come from input. */
+const abbreviationFormats = new Map<string, Intl.DateTimeFormat>();
+const MAX_ABBREVIATION_FORMATS = 64;
+
+/**
+ * The zone's short name at that instant ("MDT"), exactly as luxon's "ZZZZ" token writes it: the
+ * same Intl options and locale, but one formatter per zone kept for reuse, where luxon builds a
+ * new one on every call (most of the cost of a formatted hour).
+ */
+function zoneAbbreviation(local: DateTime): string {
+  if (local.zone.type !== 'iana') return local.toFormat('ZZZZ');
+  const key = `${local.locale}\u0000${local.zone.name}`;
+  let format = abbreviationFormats.get(key);
+  if (!format) {
+    if (abbreviationFormats.size >= MAX_ABBREVIATION_FORMATS) abbreviationFormats.clear();
+    format = new Intl.DateTimeFormat(local.locale ?? undefined, {
+      timeZoneName: 'short',
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+      hour: '2-digit',
+      minute: '2-digit',
+      timeZone: local.zone.name,
+    });
+    abbreviationFormats.set(key, format);
+  }
+  const part = format.formatToParts(new Date(local.toMillis())).find((candidate) => candidate.type.toLowerCase() === 'timezonename');
+  // luxon writes a missing name as "null"; so do we, to stay byte-identical.
+  return `${part ? part.value : null}`;
+}
+
 /** "Thu 14:00 MDT". */
 export function formatLocalHour(isoInstant: string, timeZone: string): string {
   const local = inZone(isoInstant, timeZone);
-  return local.isValid ? local.toFormat('ccc HH:mm ZZZZ') : isoInstant;
+  return local.isValid ? `${local.toFormat('ccc HH:mm')} ${zoneAbbreviation(local)}` : isoInstant;
 }
 
 /** "Thu 14 Aug 14:00 MDT", for alerts where the date matters. */
 export function formatLocalDateHour(isoInstant: string, timeZone: string): string {
   const local = inZone(isoInstant, timeZone);
-  return local.isValid ? local.toFormat('ccc d LLL HH:mm ZZZZ') : isoInstant;
+  return local.isValid ? `${local.toFormat('ccc d LLL HH:mm')} ${zoneAbbreviation(local)}` : isoInstant;
 }
 
 /** "14:00", for compact places (chart axes, ranges). */
