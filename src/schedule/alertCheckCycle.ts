@@ -91,6 +91,12 @@ function headlineFigures(input: AlertRenderInput): Pick<AlertContent, 'value' | 
   };
 }
 
+const SEVERITY_RANK: Record<WatchCrossing['severity'], number> = { warning: 0, watch: 1, info: 2 };
+
+function byForecastOrder(a: WatchCrossing, b: WatchCrossing): number {
+  return Date.parse(a.validTime) - Date.parse(b.validTime) || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity];
+}
+
 /** The alert content for one channel: its units, its name for the place. */
 export function alertContentOf(input: AlertRenderInput): AlertContent {
   const { crossing, assessment } = input;
@@ -314,7 +320,11 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       const enabled = ruleSet.rules.filter((r) => r.enabled);
       // The previous run's assessment (same place, older run) lets the watch report worsenings.
       const earlier = previous && previous.runTime !== assessment.runTime ? previous : undefined;
-      for (const found of deps.findCrossings(assessment, enabled, earlier)) {
+      // A channel reads its alerts in forecast order, the most severe first within an hour; each is
+      // queued a millisecond after the one before, so the outbox (oldest due first) keeps that order.
+      const foundInOrder = [...deps.findCrossings(assessment, enabled, earlier)].sort(byForecastOrder);
+      let queuedAtMs = nowMs;
+      for (const found of foundInOrder) {
         report.crossingsFound += 1;
         const recipients = members.filter(({ mutes }) => !isMuted(mutes, found.ruleId, locationKey)).map((m) => m.watch);
         report.mutedSkips += members.length - recipients.length;
@@ -327,7 +337,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
           report.endsNotAnnounced += 1;
           continue;
         }
-        await announce(found, crossing, recipients, assessment, nowMs, report);
+        await announce(found, crossing, recipients, assessment, queuedAtMs++, report);
       }
     }
     lastSeenRunTime.set(locationKey, result.series.runTime);

@@ -60,6 +60,25 @@ describe('alert-check cycle', () => {
     expect(a.id).not.toBe(b.id);
   });
 
+  it('queues the alerts of a place in forecast order, and never pushes the end of a rule', async () => {
+    await channelWatching(store, slackTarget('C0ORD'), [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const report = await cycle.run(MORNING);
+    const rows = await store.outbox.claimDueOutbox('inspector', 10_000, 1, MORNING + 10 * 86_400_000);
+    expect(rows.length).toBeGreaterThan(2);
+    expect(rows.some((row) => row.dedupeKey.includes('|down|'))).toBe(false);
+    expect(report.endsNotAnnounced).toBeGreaterThan(0);
+    // Claimed oldest-due first: that must be the order of the forecast hours the alerts are about.
+    const validTimes = rows.map((row) => (payloadToMessage(row.payload) as { ok: true; message: { title: string } }).message.title);
+    const crossingTimes = await Promise.all(rows.map(async (row) => {
+      const [locationKey, ruleId, validLocalDay] = row.dedupeKey.split('|').slice(1, 4);
+      return (await store.alerts.findCrossing({ locationKey: locationKey!, ruleId: ruleId!, validLocalDay: validLocalDay!, direction: 'up' }))!.validTime;
+    }));
+    const sorted = [...crossingTimes].sort((a, b) => Date.parse(a) - Date.parse(b));
+    expect(crossingTimes, validTimes.join('\n')).toEqual(sorted);
+  });
+
   it('checks again only after the interval, and an unchanged forecast queues nothing new', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
