@@ -78,7 +78,6 @@ const FORECAST_HOURS = 48;
 
 /** The command mix: lookups of the three demo places and one detail view (skew-T) in five. */
 const COMMAND_MIX = ['Kestrel Bench ICP', 'Sawback Lookout', 'Alder Sink', 'detail Kestrel Bench ICP 15', 'Sawback Lookout'];
-const commandText = (index: number): string => COMMAND_MIX[index % COMMAND_MIX.length]!;
 /**
  * Untimed commands per run before the clock starts, as a bot that has been up a while has seen:
  * help, and a lookup and a detail view of a point none of the timed commands asks for. They load

@@ -2,7 +2,7 @@ import type { HourAssessment, SeriesAssessment } from '../watch/seriesAssessment
 import { encodeDetailValue } from './actionValues.ts';
 import { hainesValueText } from './hainesWording.ts';
 import { formatLocalHour } from './localTime.ts';
-import type { Message, MessageField, MessageImage } from './message.ts';
+import type { Message, MessageAction, MessageField, MessageImage } from './message.ts';
 import { drawMixingChartPng } from './mixingChart.ts';
 import { placeLabel } from './placeLabel.ts';
 import type { RenderOptions } from './renderOptions.ts';
@@ -93,6 +93,15 @@ export function chartImage(series: SeriesAssessment, units: UnitSystem, options:
   ];
 }
 
+/** The button that opens the detail view of one hour of a series. */
+export function detailAction(series: SeriesAssessment, hour: HourAssessment): MessageAction {
+  return {
+    actionId: 'show-detail',
+    label: `Layers at ${formatLocalHour(hour.validTime, series.timeZone)}`,
+    value: encodeDetailValue(series.location.latitude, series.location.longitude, hour.validTime),
+  };
+}
+
 /**
  * The answer to a lookup: the next 48 hours in a few lines that fit a phone screen, with the
  * 48-hour chart and a button for the detail view of the hour that matters most.
@@ -127,13 +136,7 @@ export function buildLookupMessage(series: SeriesAssessment, units: UnitSystem, 
         { lines: [sourceLine(series.model, series.runTime, series.sourceName, series.invented)] },
       ],
       images: chartImage(series, units, options),
-      actions: [
-        {
-          actionId: 'show-detail',
-          label: `Layers at ${formatLocalHour(focus.validTime, series.timeZone)}`,
-          value: encodeDetailValue(series.location.latitude, series.location.longitude, focus.validTime),
-        },
-      ],
+      actions: [detailAction(series, focus)],
     },
     options.footerLocalLine,
   );

@@ -10,7 +10,6 @@ import {
   moistAdiabatPath,
   pointOf,
   samplePressures,
-  xOfTemperature,
   yOfPressure,
   type SkewTFrame,
 } from './skewTGeometry.ts';

@@ -1,8 +1,7 @@
 import type { DaySummary, HourAssessment, SeriesAssessment } from '../watch/seriesAssessment.ts';
-import { encodeDetailValue } from './actionValues.ts';
 import { formatLocalDate, formatLocalHour } from './localTime.ts';
 import { hainesValueText } from './hainesWording.ts';
-import { chartImage, couplingLine, plumeCloudField } from './lookupMessage.ts';
+import { chartImage, couplingLine, detailAction, plumeCloudField } from './lookupMessage.ts';
 import type { Message, MessageField } from './message.ts';
 import { placeLabel } from './placeLabel.ts';
 import type { RenderOptions } from './renderOptions.ts';
@@ -67,13 +66,7 @@ export function buildMorningSummary(series: SeriesAssessment, units: UnitSystem,
         { lines: [sourceLine(series.model, series.runTime, series.sourceName, series.invented)] },
       ],
       images: chartImage(series, units, options),
-      actions: [
-        {
-          actionId: 'show-detail',
-          label: `Layers at ${formatLocalHour(focus.validTime, series.timeZone)}`,
-          value: encodeDetailValue(series.location.latitude, series.location.longitude, focus.validTime),
-        },
-      ],
+      actions: [detailAction(series, focus)],
     },
     options.footerLocalLine,
   );

@@ -1,7 +1,7 @@
 /** Channels: created on first contact, settings changed in place, never deleted. */
 import { z } from 'zod';
 import type { StoreContext } from './storeContext.ts';
-import type { Channel, ChannelDefaults, ChannelRepository, ChannelTarget, UnitSystem } from './storeTypes.ts';
+import type { Channel, ChannelRepository, ChannelTarget, UnitSystem } from './storeTypes.ts';
 import { newId } from './newId.ts';
 import { toChannel } from './rowMappers.ts';
 import { StoreError } from './storeError.ts';

@@ -11,7 +11,6 @@ import { mixedLayerMeans } from '../../src/core/parcels/mixedLayerParcel.ts';
 import { precipitableWaterMm } from '../../src/core/parcels/precipitableWater.ts';
 import { analyzeParcelsAndIndices } from '../../src/core/parcelsAndIndices.ts';
 import { temperatureOnPseudoAdiabatC } from '../../src/core/thermo/pseudoAdiabat.ts';
-import { mixingRatioKgKg } from '../../src/core/thermo/vapour.ts';
 import { convectiveColumnInput, prepared, profileInputFromColumn, type ColumnPoint } from './parcelsProfiles.ts';
 
 /** A column whose environment is a saturated parcel's own pseudo-adiabat shifted by offsetC(p). */
