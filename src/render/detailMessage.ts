@@ -6,7 +6,7 @@ import { formatLocalDateHour } from './localTime.ts';
 import type { Message, MessageImage } from './message.ts';
 import type { RenderOptions } from './renderOptions.ts';
 import { buildMessage } from './safetyFooter.ts';
-import { drawSkewTPng } from './skewTDiagram.ts';
+import { drawSkewTPng, prepareSkewTPng } from './skewTDiagram.ts';
 import { sourceLine } from './sourceLine.ts';
 import {
   formatHeightAgl,
@@ -28,6 +28,12 @@ export interface DetailContext extends RenderOptions {
   model?: string;
   runTime?: string;
   sourceName?: string;
+}
+
+/** Makes the detail view's diagram off the event loop; call before `buildDetailMessage`. */
+export function prepareDetailImage(hour: HourAssessment, units: UnitSystem, context: DetailContext): Promise<void> {
+  if (context.images === false || !hour.analysis) return Promise.resolve();
+  return prepareSkewTPng(hour.analysis, { units, timeZone: context.timeZone, invented: context.invented });
 }
 
 function skewTImage(analysis: AnalysisResult, units: UnitSystem, context: DetailContext): MessageImage[] {

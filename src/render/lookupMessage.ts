@@ -3,7 +3,7 @@ import { encodeDetailValue } from './actionValues.ts';
 import { hainesValueText } from './hainesWording.ts';
 import { formatLocalHour } from './localTime.ts';
 import type { Message, MessageAction, MessageField, MessageImage } from './message.ts';
-import { drawMixingChartPng } from './mixingChart.ts';
+import { drawMixingChartPng, prepareMixingChartPng } from './mixingChart.ts';
 import { placeLabel } from './placeLabel.ts';
 import type { RenderOptions } from './renderOptions.ts';
 import { buildMessage } from './safetyFooter.ts';
@@ -78,6 +78,12 @@ export function keyFigureFields(hours: HourAssessment[], timeZone: string, units
     },
     { label: 'Haines Index (max)', value: `${hainesValueText(haines.hainesTotal, haines.hainesVariant)}, ${at(haines)}` },
   ];
+}
+
+/** Makes the lookup's (and summary's) chart off the event loop; call before building the message. */
+export function prepareChartImage(series: SeriesAssessment, units: UnitSystem, options: RenderOptions = {}): Promise<void> {
+  if (options.images === false || series.hours.length === 0) return Promise.resolve();
+  return prepareMixingChartPng(series, { units });
 }
 
 export function chartImage(series: SeriesAssessment, units: UnitSystem, options: RenderOptions): MessageImage[] {

@@ -1,7 +1,7 @@
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import { INVENTED_DATA_NOTE } from './inventedDataNote.ts';
 import { formatLocalHour, localParts } from './localTime.ts';
-import { rasterizeSvgToPng, type PngResult } from './rasterizePng.ts';
+import { prepareSvgToPng, rasterizeSvgToPng, type PngResult } from './rasterizePng.ts';
 import { SAFETY_FOOTER_SHORT } from './safetyFooter.ts';
 import { CHART_FONT_FAMILY, escapeXml, polylinePoints, px } from './svgMarkup.ts';
 import { heightInSystemUnit, heightUnitLabel, type UnitSystem } from './units.ts';
@@ -193,4 +193,9 @@ function chartSvgOnce(series: SeriesAssessment, options: MixingChartOptions): st
 
 export function drawMixingChartPng(series: SeriesAssessment, options: MixingChartOptions): PngResult {
   return rasterizeSvgToPng(chartSvgOnce(series, options));
+}
+
+/** Rasterises the chart off the event loop so that `drawMixingChartPng` finds it ready. */
+export function prepareMixingChartPng(series: SeriesAssessment, options: MixingChartOptions): Promise<void> {
+  return prepareSvgToPng(chartSvgOnce(series, options));
 }

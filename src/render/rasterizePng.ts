@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs';
-import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import { Resvg, renderAsync, type ResvgRenderOptions } from '@resvg/resvg-js';
 import { PngCache } from './pngCache.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
 
@@ -61,6 +61,32 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
   } catch (error) {
     return { ok: false, reason: `could not draw the image: ${error instanceof Error ? error.message : String(error)}` };
   }
+}
+
+const inFlight = new Map<string, Promise<void>>();
+
+/**
+ * Rasterises on libuv's thread pool and leaves the picture in the cache, so that the synchronous
+ * `rasterizeSvgToPng` a message builder calls next finds it there. The slow part of an answer then
+ * runs off the event loop, and acknowledgements of other commands are not kept waiting behind it.
+ * Requests for the same picture share one rendering. Never rejects: a failure is left for the
+ * synchronous call to report.
+ */
+export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Promise<void> {
+  const { options, key: settingsKey } = renderSettings();
+  const key = PngCache.keyOf(svg, settingsKey);
+  if (cache.get(key)) return Promise.resolve();
+  const pending = inFlight.get(key);
+  if (pending) return pending;
+  rasterizedCount += 1;
+  const rendering = renderAsync(svg, options)
+    .then((rendered) => {
+      cache.set(key, { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height });
+    })
+    .catch(() => {})
+    .finally(() => inFlight.delete(key));
+  inFlight.set(key, rendering);
+  return rendering;
 }
 
 /** For the benchmarks: pictures actually rasterised in this process, and answers taken from the shared cache. */

@@ -1,7 +1,7 @@
 import type { AnalysisResult, LevelReport } from '../core/analysisResult.ts';
 import { INVENTED_DATA_NOTE } from './inventedDataNote.ts';
 import { formatLocalDateHour } from './localTime.ts';
-import { rasterizeSvgToPng, type PngResult } from './rasterizePng.ts';
+import { prepareSvgToPng, rasterizeSvgToPng, type PngResult } from './rasterizePng.ts';
 import { SAFETY_FOOTER_SHORT } from './safetyFooter.ts';
 import {
   DEFAULT_SKEWT_FRAME,
@@ -307,5 +307,10 @@ function skewTSvgOnce(analysis: AnalysisResult, options: SkewTOptions): string {
 
 export function drawSkewTPng(analysis: AnalysisResult, options: SkewTOptions): PngResult {
   return rasterizeSvgToPng(skewTSvgOnce(analysis, options));
+}
+
+/** Rasterises the diagram off the event loop so that `drawSkewTPng` finds it ready. */
+export function prepareSkewTPng(analysis: AnalysisResult, options: SkewTOptions): Promise<void> {
+  return prepareSvgToPng(skewTSvgOnce(analysis, options));
 }
 

@@ -1,6 +1,6 @@
 import { DateTime } from 'luxon';
-import { buildDetailMessage } from '../../render/detailMessage.ts';
-import { buildLookupMessage } from '../../render/lookupMessage.ts';
+import { buildDetailMessage, prepareDetailImage, type DetailContext } from '../../render/detailMessage.ts';
+import { buildLookupMessage, prepareChartImage } from '../../render/lookupMessage.ts';
 import type { Message } from '../../render/message.ts';
 import type { HourAssessment, SeriesAssessment } from '../../watch/seriesAssessment.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
@@ -14,7 +14,10 @@ export async function lookUp(context: HandlerContext, ref: PlaceRef): Promise<Me
   if (!resolved.ok) return errorMessage(resolved.error, context.localFooterLine);
   const assessed = await fetchAssessment(context, resolved.place, { keepAnalysis: false });
   if (!assessed.ok) return errorMessage(assessed.error, context.localFooterLine);
-  return buildLookupMessage(assessed.series, context.channel.unitSystem, { footerLocalLine: context.localFooterLine });
+  const renderOptions = { footerLocalLine: context.localFooterLine };
+  // The chart is rasterised off the event loop first; the builder then finds it ready.
+  await prepareChartImage(assessed.series, context.channel.unitSystem, renderOptions);
+  return buildLookupMessage(assessed.series, context.channel.unitSystem, renderOptions);
 }
 
 /** Which hour the detail view shows when the user names none: the coupling hour, else the deepest mixing. */
@@ -57,7 +60,7 @@ async function detailFor(
   if (!hour || !hour.analysis) {
     return errorMessage(`No forecast hour for ${wantedLabel} at ${place.displayName} in the next ${context.forecastHours} h. Try \`detail ${place.savedName ?? `${place.latitudeDeg},${place.longitudeDeg}`} 15\`.`, context.localFooterLine);
   }
-  return buildDetailMessage(hour, context.channel.unitSystem, {
+  const detailContext: DetailContext = {
     timeZone: series.timeZone,
     invented: series.invented,
     placeName: place.displayName,
@@ -65,5 +68,7 @@ async function detailFor(
     runTime: series.runTime,
     sourceName: series.sourceName,
     footerLocalLine: context.localFooterLine,
-  });
+  };
+  await prepareDetailImage(hour, context.channel.unitSystem, detailContext);
+  return buildDetailMessage(hour, context.channel.unitSystem, detailContext);
 }
