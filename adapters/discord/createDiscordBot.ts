@@ -26,12 +26,21 @@ export interface RunningDiscordBot {
   stop(): Promise<void>;
 }
 
+/** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
+const INTERACTION_REPLIES_PER_SECOND = 1000;
+
 /** Builds the discord.js client with our interaction handler; `startDiscordBot` logs it in. */
 export function createDiscordBot(options: DiscordBotOptions): Client {
   // Interactions arrive without any privileged intent; Guilds keeps the channel cache useful.
+  // This client only answers interactions (deferral, then an edit of the original reply through the
+  // interaction's webhook token), and Discord's interaction endpoints are not bound to the bot's
+  // global rate limit (Discord developer docs, "Receiving and Responding": endpoints). The
+  // library's client-side 50 requests/s default would queue replies for no reason under a burst;
+  // per-route limits and 429 answers are still honoured. Channel posts go through the outbox's
+  // poster, a separate REST client that keeps the default.
   const client = new Client({
     intents: [GatewayIntentBits.Guilds],
-    rest: { makeRequest: fetchRequest, ...(options.apiUrl ? { api: options.apiUrl } : {}) },
+    rest: { makeRequest: fetchRequest, globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND, ...(options.apiUrl ? { api: options.apiUrl } : {}) },
   });
   const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
   const handle = createInteractionHandler({
