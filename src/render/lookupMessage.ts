@@ -1,3 +1,4 @@
+import { GROUND_BASED_LAYER_MAX_BASE_AGL_M } from '../core/mixing/coupling.ts';
 import type { HourAssessment, SeriesAssessment } from '../watch/seriesAssessment.ts';
 import { encodeDetailValue } from './actionValues.ts';
 import { hainesValueText } from './hainesWording.ts';
@@ -26,12 +27,14 @@ function extreme(hours: HourAssessment[], score: (hour: HourAssessment) => numbe
 export function couplingLine(hours: HourAssessment[], timeZone: string, units: UnitSystem, span: string): string {
   const first = hours.find((hour) => hour.coupled);
   if (first) {
+    // The layer aloft it reaches: never the ground-based dry layer, which is the mixed layer itself.
     const layer =
-      first.dryNearAdiabaticLayers.find((candidate) => first.mixingHeightAglM >= candidate.baseAglM) ?? first.dryNearAdiabaticLayers[0];
+      first.coupledLayer ??
+      first.dryNearAdiabaticLayers.find((candidate) => candidate.baseAglM > GROUND_BASED_LAYER_MAX_BASE_AGL_M && first.mixingHeightAglM >= candidate.baseAglM);
     const layerText = layer ? ` (layer ${formatHeightAgl(layer.baseAglM, units)} to ${formatHeightAgl(layer.topAglM, units)})` : '';
     return `Mixed layer reaches a dry near-dry-adiabatic layer at ${formatLocalHour(first.validTime, timeZone)}${layerText}; mixing then runs to ${formatHeightAgl(first.effectiveMixingHeightAglM, units)}.`;
   }
-  const anyLayer = hours.some((hour) => hour.dryNearAdiabaticLayers.length > 0);
+  const anyLayer = hours.some((hour) => hour.dryNearAdiabaticLayers.some((layer) => layer.baseAglM > GROUND_BASED_LAYER_MAX_BASE_AGL_M));
   return anyLayer
     ? `Mixed layer stays below the dry near-dry-adiabatic layer aloft ${span}.`
     : `No dry near-dry-adiabatic layer aloft ${span}.`;
