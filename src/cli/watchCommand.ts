@@ -1,6 +1,7 @@
 import { DemoSource } from '../forecast/demoSource.ts';
 import { FileSource } from '../forecast/fileSource.ts';
 import { OpenMeteoSource } from '../forecast/openMeteoSource.ts';
+import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
 import type { ForecastSource } from '../forecast/forecastSource.ts';
 import { encodeForTerminal } from '../render/encodeTerminal.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
@@ -16,7 +17,6 @@ import type { CliCommand } from './cliCommand.ts';
 const EXIT_OK = 0;
 const EXIT_FAILED = 1;
 const EXIT_USAGE = 2;
-const HOUR_MS = 3_600_000;
 
 export interface WatchIo {
   stdout: NodeJS.WritableStream & { isTTY?: boolean };
@@ -67,8 +67,8 @@ export async function runWatchCommand(args: string[], io: WatchIo): Promise<numb
     return EXIT_FAILED;
   }
 
-  const startTime = options.startTime ?? new Date(Math.floor(Date.now() / HOUR_MS) * HOUR_MS).toISOString();
-  const result = await source.fetchSeries(options.location, { startTime, hours: options.hours });
+  const window = options.startTime ? { startTime: options.startTime, hours: options.hours } : forecastWindowFrom(Date.now(), options.hours);
+  const result = await source.fetchSeries(options.location, window);
   if (!result.ok) {
     io.stderr.write(`lapsewatch watch: ${result.error.message}\n`);
     return EXIT_FAILED;

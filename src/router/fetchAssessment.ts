@@ -1,4 +1,5 @@
 import type { ForecastLocation, ForecastSeries } from '../forecast/forecastSource.ts';
+import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import type { ResolvedPlace } from './resolvePlace.ts';
@@ -6,7 +7,6 @@ import type { HandlerContext } from './routerContext.ts';
 
 export type AssessmentResult = { ok: true; series: SeriesAssessment } | { ok: false; error: string };
 
-const HOUR_MS = 3_600_000;
 
 /**
  * A cached forecast comes back as the same series object to every channel that asks until the next
@@ -54,8 +54,7 @@ export async function fetchAssessment(
     name: place.displayName,
     ...(place.elevationM === null ? {} : { elevationM: place.elevationM }),
   };
-  const startMs = Math.floor((options.startMs ?? context.nowMs()) / HOUR_MS) * HOUR_MS;
-  const result = await context.source.fetchSeries(location, { startTime: new Date(startMs).toISOString(), hours: context.forecastHours });
+  const result = await context.source.fetchSeries(location, forecastWindowFrom(options.startMs ?? context.nowMs(), context.forecastHours));
   if (!result.ok) return { ok: false, error: `No forecast for ${place.displayName}: ${result.error.message} Nothing is assumed; try again shortly.` };
   return { ok: true, series: assessOnce(result.series, options.keepAnalysis) };
 }

@@ -30,6 +30,8 @@ import type { Crossing as WatchCrossing } from '../watch/crossings/crossing.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import { findCrossings } from '../watch/crossings/findCrossings.ts';
 import { isMaterialUpdate } from '../watch/crossings/isMaterialUpdate.ts';
+import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
+import { watchLocation } from './watchLocation.ts';
 import { buildAlertMessage, formatAlertValue, type AlertContent, type AlertValueKind } from '../render/alertMessage.ts';
 import { messageToPayload } from '../delivery/outboxPayload.ts';
 import { dueAlertChecks, groupWatchesByLocation, type DueAlertCheck } from './alertCheckDue.ts';
@@ -214,20 +216,6 @@ function isMuted(mutes: readonly Mute[], ruleId: string, locationKey: string): b
   return mutes.some((m) => m.ruleId === ruleId && (m.locationKey === locationKey || m.locationKey === ALL_LOCATIONS));
 }
 
-function forecastWindowAt(nowMs: number, hours: number): ForecastWindow {
-  const hourStartMs = Math.floor(nowMs / 3_600_000) * 3_600_000;
-  return { startTime: new Date(hourStartMs).toISOString(), hours };
-}
-
-function locationOf(watch: WatchWithChannel): ForecastLocation {
-  return {
-    latitude: watch.latitudeDeg,
-    longitude: watch.longitudeDeg,
-    ...(watch.elevationM !== null ? { elevationM: watch.elevationM } : {}),
-    ...(watch.placeName !== null ? { name: watch.placeName } : {}),
-  };
-}
-
 export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertCheckCycle {
   const { store, deps, workerId, logger } = options;
   const forecastHours = options.forecastHours ?? 48;
@@ -293,7 +281,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
   async function checkPlace(check: DueAlertCheck, nowMs: number, report: AlertCheckReport): Promise<void> {
     const { locationKey, watches } = check;
     report.forecastRequests += 1;
-    const result = await deps.fetchSeries(locationOf(watches[0]!), forecastWindowAt(nowMs, forecastHours));
+    const result = await deps.fetchSeries(watchLocation(watches[0]!), forecastWindowFrom(nowMs, forecastHours));
     if (!result.ok) {
       report.forecastFailures += 1;
       retryNotBeforeMs.set(locationKey, nowMs + fetchFailureRetryMs);

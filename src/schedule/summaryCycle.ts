@@ -12,6 +12,8 @@ import type { Channel, Store, WatchWithChannel } from '../store/storeTypes.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import { timeZoneAt } from '../geo/timeZoneAt.ts';
+import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
+import { watchLocation } from './watchLocation.ts';
 import { buildMorningSummary } from '../render/summaryMessage.ts';
 import { buildMessage } from '../render/safetyFooter.ts';
 import { messageToPayload } from '../delivery/outboxPayload.ts';
@@ -105,19 +107,10 @@ export function createSummaryCycle(options: SummaryCycleOptions): { run(nowMs: n
 
   async function render(summary: DueSummary, nowMs: number, fetched: Map<string, Promise<ForecastResult>>): Promise<Message> {
     const { watch } = summary;
-    const startMs = Math.floor(nowMs / 3_600_000) * 3_600_000;
     // Channels that watch one place at the same summary time share one fetch within the tick.
     let pending = fetched.get(watch.locationKey);
     if (!pending) {
-      pending = deps.fetchSeries(
-      {
-        latitude: watch.latitudeDeg,
-        longitude: watch.longitudeDeg,
-        ...(watch.elevationM !== null ? { elevationM: watch.elevationM } : {}),
-        ...(watch.placeName !== null ? { name: watch.placeName } : {}),
-      },
-      { startTime: new Date(startMs).toISOString(), hours: forecastHours },
-      );
+      pending = deps.fetchSeries(watchLocation(watch), forecastWindowFrom(nowMs, forecastHours));
       fetched.set(watch.locationKey, pending);
     }
     const result = await pending;
