@@ -21,7 +21,7 @@ export async function resolvePlace(context: HandlerContext, ref: PlaceRef): Prom
     return {
       ok: true,
       place: {
-        displayName: `${formatDegrees(ref.latitudeDeg, 'N', 'S')} ${formatDegrees(ref.longitudeDeg, 'E', 'W')}`,
+        displayName: describePoint(ref.latitudeDeg, ref.longitudeDeg),
         savedName: null,
         latitudeDeg: ref.latitudeDeg,
         longitudeDeg: ref.longitudeDeg,
@@ -64,6 +64,11 @@ export async function resolvePlace(context: HandlerContext, ref: PlaceRef): Prom
   };
 }
 
-export function formatDegrees(value: number, positive: string, negative: string): string {
+/** A point as people read it: "44.80°N 115.40°W". */
+export function describePoint(latitudeDeg: number, longitudeDeg: number): string {
+  return `${formatDegrees(latitudeDeg, 'N', 'S')} ${formatDegrees(longitudeDeg, 'E', 'W')}`;
+}
+
+function formatDegrees(value: number, positive: string, negative: string): string {
   return `${Math.abs(value).toFixed(2)}°${value >= 0 ? positive : negative}`;
 }

@@ -3,7 +3,7 @@ import type { Message } from '../../render/message.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
 import { isRuleId } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
-import { formatDegrees } from '../resolvePlace.ts';
+import { describePoint } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
 import { showDetailAt } from './forecastCommands.ts';
 
@@ -22,7 +22,7 @@ export async function muteRule(context: HandlerContext, rawValue: string): Promi
   const locationKey = locationKeyOf(Number(point[1]), Number(point[2]));
   const untilMs = context.nowMs() + MUTE_DURATION_MS;
   await context.store.rules.setMute(context.channel.id, ruleId, locationKey, untilMs, context.nowMs());
-  return noticeMessage(`Muted "${rule.name}" at ${formatDegrees(Number(point[1]), 'N', 'S')} ${formatDegrees(Number(point[2]), 'E', 'W')} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`, ['Other rules and places still alert.'], context.localFooterLine);
+  return noticeMessage(`Muted "${rule.name}" at ${describePoint(Number(point[1]), Number(point[2]))} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`, ['Other rules and places still alert.'], context.localFooterLine);
 }
 
 export async function detailFromButton(context: HandlerContext, rawValue: string): Promise<Message> {
@@ -35,7 +35,7 @@ export async function detailFromButton(context: HandlerContext, rawValue: string
   return showDetailAt(
     context,
     {
-      displayName: saved?.name ?? `${formatDegrees(latitude, 'N', 'S')} ${formatDegrees(longitude, 'E', 'W')}`,
+      displayName: saved?.name ?? describePoint(latitude, longitude),
       savedName: saved?.name ?? null,
       latitudeDeg: latitude,
       longitudeDeg: longitude,

@@ -1,5 +1,5 @@
 import type { Message } from '../../render/message.ts';
-import { formatDegrees } from '../resolvePlace.ts';
+import { describePoint } from '../resolvePlace.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
 import type { HandlerContext } from '../routerContext.ts';
 
@@ -30,8 +30,4 @@ export async function forgetPlace(context: HandlerContext, name: string): Promis
   const removed = await context.store.places.removePlace(context.channel.id, name);
   if (!removed) return errorMessage(`No saved place called "${name}" here; \`places\` lists them. Nothing was changed.`, context.localFooterLine);
   return noticeMessage(`Removed "${name}".`, ['Any watch made from it keeps running; stop it with `unwatch` and the point.'], context.localFooterLine);
-}
-
-export function describePoint(latitudeDeg: number, longitudeDeg: number): string {
-  return `${formatDegrees(latitudeDeg, 'N', 'S')} ${formatDegrees(longitudeDeg, 'E', 'W')}`;
 }

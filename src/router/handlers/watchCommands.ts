@@ -1,9 +1,8 @@
 import type { Message } from '../../render/message.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
-import { resolvePlace } from '../resolvePlace.ts';
+import { describePoint, resolvePlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
-import { describePoint } from './placeCommands.ts';
 
 export async function startWatching(context: HandlerContext, ref: PlaceRef): Promise<Message> {
   if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
