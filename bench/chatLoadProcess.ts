@@ -13,7 +13,7 @@
  * - Discord: ack = the deferred-reply callback; full = the edit of the original reply, which
  *   carries the embed and its attachment in one request.
  */
-import { memorySampler, serveParent } from './childLink.ts';
+import { memorySampler, serveParent } from './childSide.ts';
 import { startSlackStandIn, type SlackStandIn } from '../test/adapters/slackStandIn.ts';
 import { postSigned, slashCommandForm } from '../test/adapters/slackSigning.ts';
 import { standInApplicationId, startDiscordStandIn, type DiscordStandIn } from '../test/adapters/discordStandIn.ts';

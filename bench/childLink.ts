@@ -9,6 +9,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
+import { runnableModule } from '../bin/compiledBuild.mjs';
 
 const REPO_ROOT = fileURLToPath(new URL('..', import.meta.url));
 
@@ -29,9 +30,21 @@ function exited(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => child.once('exit', () => resolve()));
 }
 
-/** Starts `bench/<script>` under tsx and waits (at most `readyTimeoutMs`) for its ready line. */
-export async function startChild(script: string, args: string[], readyTimeoutMs: number): Promise<ChildLink> {
-  const child = spawn(process.execPath, ['--import', 'tsx', fileURLToPath(new URL(script, import.meta.url)), ...args], {
+export interface ChildOptions {
+  /** Run the compiled build of the script when it is current (as `npm start` runs the bot). */
+  preferCompiled?: boolean;
+  /** Node flags before the script, e.g. the bot's BOT_NODE_FLAGS. */
+  nodeFlags?: readonly string[];
+}
+
+/**
+ * Starts `bench/<script>` (under tsx, or compiled when asked and current) and waits (at most
+ * `readyTimeoutMs`) for its ready line.
+ */
+export async function startChild(script: string, args: string[], readyTimeoutMs: number, options: ChildOptions = {}): Promise<ChildLink> {
+  const module = options.preferCompiled ? runnableModule(`bench/${script}`) : { path: fileURLToPath(new URL(script, import.meta.url)), compiled: false };
+  const loader = module.compiled ? [] : ['--import', 'tsx'];
+  const child = spawn(process.execPath, [...(options.nodeFlags ?? []), ...loader, module.path, ...args], {
     cwd: REPO_ROOT,
     stdio: ['pipe', 'pipe', 'inherit'],
   });
@@ -103,54 +116,4 @@ export async function startChild(script: string, args: string[], readyTimeoutMs:
   };
 }
 
-/**
- * The child's side: prints `hello` as its ready line, answers every request with `handle`, and
- * runs `shutdown` then exits when stdin closes or after `lifetimeMs` (a bench never outlives its bound).
- */
-export function serveParent(hello: Json, handle: (request: Json) => Promise<Json>, shutdown: () => Promise<void>, lifetimeMs: number): void {
-  let stopping = false;
-  const stop = async (code: number): Promise<void> => {
-    if (stopping) return;
-    stopping = true;
-    await shutdown().catch((error: unknown) => process.stderr.write(`child shutdown: ${String(error)}\n`));
-    process.exit(code);
-  };
-  setTimeout(() => {
-    process.stderr.write(`child ${process.pid}: over its ${lifetimeMs / 1000} s lifetime, stopping\n`);
-    void stop(1);
-  }, lifetimeMs).unref();
-  const lines = createInterface({ input: process.stdin });
-  lines.on('line', (line) => {
-    const request = JSON.parse(line) as Json;
-    handle(request).then(
-      (answer) => process.stdout.write(`${JSON.stringify({ ...answer, id: request.id })}\n`),
-      (error: unknown) => process.stdout.write(`${JSON.stringify({ id: request.id, error: error instanceof Error ? error.message : String(error) })}\n`),
-    );
-  });
-  lines.on('close', () => void stop(0));
-  process.stdout.write(`${JSON.stringify(hello)}\n`);
-}
-
-/** Samples this process's rss and heap every `everyMs`, keeping the high-water marks. */
-export function memorySampler(everyMs = 25): { peakRssMb(): number; peakHeapUsedMb(): number; reset(): void; stop(): void } {
-  let peakRss = 0;
-  let peakHeap = 0;
-  const sample = (): void => {
-    const usage = process.memoryUsage();
-    peakRss = Math.max(peakRss, usage.rss);
-    peakHeap = Math.max(peakHeap, usage.heapUsed);
-  };
-  sample();
-  const timer = setInterval(sample, everyMs);
-  timer.unref();
-  return {
-    peakRssMb: () => (sample(), peakRss / 2 ** 20),
-    peakHeapUsedMb: () => (sample(), peakHeap / 2 ** 20),
-    reset: () => {
-      peakRss = 0;
-      peakHeap = 0;
-      sample();
-    },
-    stop: () => clearInterval(timer),
-  };
-}
+export { memorySampler, serveParent } from './childSide.ts';

@@ -7,7 +7,7 @@
  *
  *   node --import tsx bench/standInsProcess.ts [latencyMs]
  */
-import { memorySampler, serveParent } from './childLink.ts';
+import { memorySampler, serveParent } from './childSide.ts';
 import { OpenMeteoStandIn } from '../test/forecast/openMeteoStandIn.ts';
 import { SlackStandIn } from '../test/adapters/slackStandIn.ts';
 import { DiscordStandIn } from '../test/adapters/discordStandIn.ts';

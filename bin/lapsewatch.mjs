@@ -1,7 +1,13 @@
 #!/usr/bin/env node
-// Runs the TypeScript sources directly (tsx), so `npm ci` alone leaves the command usable.
-import { register } from 'tsx/esm/api';
+// Runs the compiled build (dist/, made by `npm ci` through `prepare`, or `npm run build`) when it
+// is current, else the TypeScript sources through tsx, so a changed source is never run stale.
+import { pathToFileURL } from 'node:url';
+import { runnableModule } from './compiledBuild.mjs';
 
-register();
-const { main } = await import('../src/cli/main.ts');
+const entry = runnableModule('src/cli/main.ts');
+if (!entry.compiled) {
+  const { register } = await import('tsx/esm/api');
+  register();
+}
+const { main } = await import(pathToFileURL(entry.path).href);
 process.exitCode = await main(process.argv.slice(2));

@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { parse } from 'yaml';
 import { z } from 'zod';
+import { packagePath } from '../../src/packageRoot.ts';
 
 /** The manifest is the one place the command is named; Slack and Discord both read it from here. */
-export const slackManifestPath = fileURLToPath(new URL('./manifest.yaml', import.meta.url));
+export const slackManifestPath = packagePath('adapters', 'slack', 'manifest.yaml');
 
 const manifestSchema = z.object({
   display_information: z.object({ name: z.string().min(1) }),

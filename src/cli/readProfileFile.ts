@@ -1,10 +1,10 @@
 import { readFile } from 'node:fs/promises';
-import { fileURLToPath } from 'node:url';
 import { parseProfileText } from '../profile/parseProfileText.ts';
 import type { ProfileInput } from '../core/profile.ts';
+import { packagePath } from '../packageRoot.ts';
 
 /** The bundled invented demo profile, analysed when `analyze` is given no file. */
-export const DEMO_PROFILE_PATH = fileURLToPath(new URL('../../config/demo-profile.json', import.meta.url));
+export const DEMO_PROFILE_PATH = packagePath('config', 'demo-profile.json');
 
 export type ReadProfileResult = { ok: true; profile: ProfileInput } | { ok: false; error: string };
 

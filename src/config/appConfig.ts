@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { openMeteoConfigSchema } from '../forecast/openMeteoConfig.ts';
 import { localFooterLineSchema } from '../render/safetyFooter.ts';
+import { packagePath } from '../packageRoot.ts';
 
 /** The repository's config folder, wherever the process was started from. */
-export const CONFIG_DIR = fileURLToPath(new URL('../../config/', import.meta.url));
+export const CONFIG_DIR = `${packagePath('config')}/`;
 export const DEFAULT_CONFIG_FILE = `${CONFIG_DIR}lapsewatch.yaml`;
 
 const sourceSetting = z

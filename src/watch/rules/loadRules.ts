@@ -1,5 +1,4 @@
 import { readFile } from 'node:fs/promises';
-import { fileURLToPath } from 'node:url';
 import { parseDocument } from 'yaml';
 import type { z } from 'zod';
 import { ruleValueProblems } from './checkRuleValues.ts';
@@ -7,11 +6,12 @@ import type { ConfigProblem } from './configProblem.ts';
 import { RULE_IDS, isRuleId, type Rule } from './rule.ts';
 import { RULE_MEASURES } from './ruleCatalogue.ts';
 import { ruleEntrySchema, rulesFileSchema } from './rulesFileSchema.ts';
+import { packagePath } from '../../packageRoot.ts';
 
 export type RulesResult = { ok: true; rules: Rule[] } | { ok: false; problems: ConfigProblem[] };
 
 /** The defaults shipped with the project. */
-export const DEFAULT_RULES_PATH = fileURLToPath(new URL('../../../config/rules.yaml', import.meta.url));
+export const DEFAULT_RULES_PATH = packagePath('config', 'rules.yaml');
 
 /**
  * Reads rules from YAML text. `fileLabel` names the file in every problem. Every known rule must be
