@@ -1,12 +1,14 @@
 import { Client, Events, GatewayIntentBits } from 'discord.js';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
+import type { HandOff } from '../answering/answerJob.ts';
+import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import { discordCommandName } from './commands.ts';
 import { fetchRequest } from './fetchRequest.ts';
-import { defaultDiscordEncoder, type DiscordEncoder } from './discordEncoder.ts';
+import type { DiscordEncoder } from './discordEncoder.ts';
 import { createInteractionHandler } from './discordInteractions.ts';
 
-export interface DiscordBotOptions {
-  router: CommandRouter;
+/** The receiving side: the gateway client and its credentials. */
+export interface DiscordReceiverOptions {
   token: string;
   /** Interactions for other applications (none should arrive) are ignored. */
   applicationId: string;
@@ -15,10 +17,15 @@ export interface DiscordBotOptions {
    * gateway address is not configured separately: discord.js asks GET /gateway/bot on this base.
    */
   apiUrl?: string;
-  encode?: DiscordEncoder;
   log?: (level: 'warn' | 'error', text: string) => void;
   /** How long to wait for the gateway's READY. Default 30 s. */
   readyTimeoutMs?: number;
+}
+
+/** A receiver and the router answering in the same thread. */
+export interface DiscordBotOptions extends DiscordReceiverOptions {
+  router: CommandRouter;
+  encode?: DiscordEncoder;
 }
 
 export interface RunningDiscordBot {
@@ -29,26 +36,21 @@ export interface RunningDiscordBot {
 /** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
 const INTERACTION_REPLIES_PER_SECOND = 1000;
 
-/** Builds the discord.js client with our interaction handler; `startDiscordBot` logs it in. */
-export function createDiscordBot(options: DiscordBotOptions): Client {
+/** Builds the discord.js client with our interaction handler; `startDiscordReceiver` logs it in. */
+export function createDiscordBot(options: DiscordReceiverOptions & { handOff: HandOff }): Client {
   // Interactions arrive without any privileged intent; Guilds keeps the channel cache useful.
-  // This client only answers interactions (deferral, then an edit of the original reply through the
-  // interaction's webhook token), and Discord's interaction endpoints are not bound to the bot's
-  // global rate limit (Discord developer docs, "Receiving and Responding": endpoints). The
-  // library's client-side 50 requests/s default would queue replies for no reason under a burst;
-  // per-route limits and 429 answers are still honoured. Channel posts go through the outbox's
-  // poster, a separate REST client that keeps the default.
+  // This client only defers interactions (the answer edits the reply later through the
+  // interaction's webhook token, see answering/), and Discord's interaction endpoints are not bound
+  // to the bot's global rate limit (Discord developer docs, "Receiving and Responding": endpoints).
+  // The library's client-side 50 requests/s default would queue deferrals for no reason under a
+  // burst; per-route limits and 429 answers are still honoured. Channel posts go through the
+  // outbox's poster, a separate REST client that keeps the default.
   const client = new Client({
     intents: [GatewayIntentBits.Guilds],
     rest: { makeRequest: fetchRequest, globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND, ...(options.apiUrl ? { api: options.apiUrl } : {}) },
   });
   const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
-  const handle = createInteractionHandler({
-    router: options.router,
-    commandName: discordCommandName(),
-    encode: options.encode ?? defaultDiscordEncoder,
-    log,
-  });
+  const handle = createInteractionHandler({ commandName: discordCommandName(), handOff: options.handOff, log });
   client.on(Events.InteractionCreate, (interaction) => {
     if (interaction.applicationId !== options.applicationId) return;
     void handle(interaction);
@@ -57,8 +59,8 @@ export function createDiscordBot(options: DiscordBotOptions): Client {
   return client;
 }
 
-/** Logs in and resolves once the gateway has said READY. */
-export async function startDiscordBot(options: DiscordBotOptions): Promise<RunningDiscordBot> {
+/** Logs in and resolves once the gateway has said READY; each deferred question goes to `handOff`. */
+export async function startDiscordReceiver(options: DiscordReceiverOptions & { handOff: HandOff }): Promise<RunningDiscordBot> {
   const client = createDiscordBot(options);
   let timer: NodeJS.Timeout | undefined;
   const ready = new Promise<void>((resolve, reject) => {
@@ -75,4 +77,22 @@ export async function startDiscordBot(options: DiscordBotOptions): Promise<Runni
     clearTimeout(timer);
   }
   return { client, stop: () => client.destroy() };
+}
+
+/** Logs in with the router answering in this thread; `stop` lets answers under way finish. */
+export async function startDiscordBot(options: DiscordBotOptions): Promise<RunningDiscordBot> {
+  const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
+  const desk = createAnswerDesk({
+    router: options.router,
+    discord: { ...(options.apiUrl ? { apiUrl: options.apiUrl } : {}), ...(options.encode ? { encode: options.encode } : {}) },
+    log,
+  });
+  const receiver = await startDiscordReceiver({ ...options, handOff: (job) => void desk.answer(job) });
+  return {
+    client: receiver.client,
+    stop: async () => {
+      await receiver.stop();
+      await desk.idle();
+    },
+  };
 }

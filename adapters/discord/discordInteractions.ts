@@ -1,16 +1,12 @@
 import { PermissionFlagsBits, type ButtonInteraction, type ChatInputCommandInteraction, type Interaction } from 'discord.js';
-import type { ActionRequest, CommandRouter } from '../../src/router/routerTypes.ts';
-import type { Message } from '../../src/render/message.ts';
 import { parseDiscordCustomId } from '../../src/render/encodeDiscord.ts';
-import { askRouter } from '../slack/askRouter.ts';
+import type { Ask, HandOff } from '../answering/answerJob.ts';
 import { discordTextOptionName } from './commands.ts';
-import type { DiscordEncoder } from './discordEncoder.ts';
-import { discordReplyOptions } from './discordReplyOptions.ts';
 
 export interface InteractionHandlerOptions {
-  router: CommandRouter;
   commandName: string;
-  encode: DiscordEncoder;
+  /** Takes the deferred question; the answer comes later as an edit of the deferred reply. */
+  handOff: HandOff;
   log: (level: 'warn' | 'error', text: string) => void;
 }
 
@@ -29,36 +25,39 @@ function whoAndWhere(interaction: ChatInputCommandInteraction | ButtonInteractio
   };
 }
 
+/** The question an interaction asks, or null for one that is not ours. */
+function askOf(interaction: Interaction, commandName: string): { interaction: ChatInputCommandInteraction | ButtonInteraction; ask: Ask } | null {
+  if (interaction.isChatInputCommand()) {
+    if (interaction.commandName !== commandName) return null;
+    const text = interaction.options.getString(discordTextOptionName) ?? '';
+    return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text } } };
+  }
+  if (interaction.isButton()) {
+    const parsed = parseDiscordCustomId(interaction.customId);
+    if (!parsed) return null;
+    return { interaction, ask: { kind: 'action', request: { ...whoAndWhere(interaction), actionId: parsed.actionId, value: parsed.value } } };
+  }
+  return null;
+}
+
 /**
- * Defers at once (Discord gives 3 s to answer an interaction, the forecast may take longer), asks
- * the router, then edits the deferred reply into the answer. Never throws into discord.js.
+ * Defers at once (Discord gives 3 s to answer an interaction, the forecast may take longer) and
+ * hands the question over with the interaction's token, through which the answer later edits the
+ * deferred reply. Never throws into discord.js.
  */
 export function createInteractionHandler(options: InteractionHandlerOptions): (interaction: Interaction) => Promise<void> {
-  const { router, commandName, encode, log } = options;
-
-  async function answer(interaction: ChatInputCommandInteraction | ButtonInteraction, ask: () => Promise<Message>): Promise<void> {
-    await interaction.deferReply();
-    const message = await askRouter(ask, (error) => log('error', `router failed: ${String(error)}`));
-    await interaction.editReply(discordReplyOptions(encode(message)));
-  }
-
-  return async (interaction) => {
+  const { commandName, handOff, log } = options;
+  return async (incoming) => {
+    const found = askOf(incoming, commandName);
+    if (!found) return;
+    const { interaction, ask } = found;
     try {
-      if (interaction.isChatInputCommand()) {
-        if (interaction.commandName !== commandName) return;
-        const text = interaction.options.getString(discordTextOptionName) ?? '';
-        await answer(interaction, () => router.handleCommand({ ...whoAndWhere(interaction), text }));
-        return;
-      }
-      if (interaction.isButton()) {
-        const parsed = parseDiscordCustomId(interaction.customId);
-        if (!parsed) return;
-        const request: ActionRequest = { ...whoAndWhere(interaction), actionId: parsed.actionId, value: parsed.value };
-        await answer(interaction, () => router.handleAction(request));
-      }
+      await interaction.deferReply();
     } catch (error) {
-      // Expired tokens (more than 15 min), a deleted channel, Discord down: nothing to tell the user through.
-      log('warn', `interaction ${interaction.id} not answered: ${error instanceof Error ? error.message : String(error)}`);
+      // Expired (more than 3 s late), a deleted channel, Discord down: nothing to tell the user through.
+      log('warn', `interaction ${interaction.id} not acknowledged: ${error instanceof Error ? error.message : String(error)}`);
+      return;
     }
+    handOff({ platform: 'discord', ask, applicationId: interaction.applicationId, interactionToken: interaction.token });
   };
 }

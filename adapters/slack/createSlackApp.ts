@@ -2,13 +2,15 @@ import type { AddressInfo } from 'node:net';
 import { createServer, type Server } from 'node:http';
 import { App, LogLevel } from '@slack/bolt';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
-import { defaultSlackEncoder, type SlackEncoder } from './slackEncoder.ts';
+import type { HandOff } from '../answering/answerJob.ts';
+import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
+import type { SlackEncoder } from './slackEncoder.ts';
 import { registerSlackListeners } from './slackListeners.ts';
 import { slackCommandName } from './slackCommandName.ts';
 import { boltRoutes, healthRoute, routeListener, type ExtraRoute } from './healthRoute.ts';
 
-export interface SlackAppOptions {
-  router: CommandRouter;
+/** The receiving side: Bolt, its credentials and where it listens. */
+export interface SlackReceiverOptions {
   botToken: string;
   /** HTTP mode: requests are verified with it (v0 HMAC, 5-minute window). */
   signingSecret?: string;
@@ -20,10 +22,16 @@ export interface SlackAppOptions {
   port?: number;
   /** Interface to listen on. Default all interfaces. */
   host?: string;
-  encode?: SlackEncoder;
   logLevel?: LogLevel;
   /** More GET routes on the same port beside /healthz (e.g. /metrics). */
   extraRoutes?: ExtraRoute[];
+}
+
+/** A receiver and the router answering in the same thread. */
+export interface SlackAppOptions extends SlackReceiverOptions {
+  router: CommandRouter;
+  encode?: SlackEncoder;
+  log?: (level: 'warn' | 'error', text: string) => void;
 }
 
 export interface RunningSlackApp {
@@ -38,8 +46,8 @@ function withTrailingSlash(url: string): string {
   return url.endsWith('/') ? url : `${url}/`;
 }
 
-/** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackApp` runs it. */
-export function createSlackApp(options: SlackAppOptions): { app: App; mode: 'http' | 'socket' } {
+/** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackReceiver` runs it. */
+export function createSlackApp(options: SlackReceiverOptions & { handOff: HandOff }): { app: App; mode: 'http' | 'socket' } {
   const mode = options.appToken ? 'socket' : 'http';
   if (mode === 'http' && !options.signingSecret) {
     throw new Error('Slack HTTP mode needs SLACK_SIGNING_SECRET (or set SLACK_APP_TOKEN for Socket Mode)');
@@ -59,11 +67,7 @@ export function createSlackApp(options: SlackAppOptions): { app: App; mode: 'htt
       ? { socketMode: true, appToken: options.appToken }
       : { signingSecret: options.signingSecret, customRoutes: boltRoutes([healthRoute, ...(options.extraRoutes ?? [])]) }),
   });
-  registerSlackListeners(app, {
-    router: options.router,
-    commandName: slackCommandName(),
-    encode: options.encode ?? defaultSlackEncoder,
-  });
+  registerSlackListeners(app, { commandName: slackCommandName(), handOff: options.handOff });
   return { app, mode };
 }
 
@@ -75,8 +79,11 @@ function listenForRoutes(routes: ExtraRoute[], port: number, host: string | unde
   });
 }
 
-/** Starts the app; resolves once it listens (HTTP) or Slack has said hello (Socket Mode). */
-export async function startSlackApp(options: SlackAppOptions): Promise<RunningSlackApp> {
+/**
+ * Starts the receiver alone, handing each acknowledged question to `handOff`; resolves once it
+ * listens (HTTP) or Slack has said hello (Socket Mode).
+ */
+export async function startSlackReceiver(options: SlackReceiverOptions & { handOff: HandOff }): Promise<RunningSlackApp> {
   const { app, mode } = createSlackApp(options);
   const port = options.port ?? 3000;
   if (mode === 'http') {
@@ -98,6 +105,23 @@ export async function startSlackApp(options: SlackAppOptions): Promise<RunningSl
     stop: async () => {
       await app.stop();
       await new Promise<void>((resolve) => health.close(() => resolve()));
+    },
+  };
+}
+
+/** Starts the receiver with the router answering in this thread; `stop` lets answers under way finish. */
+export async function startSlackApp(options: SlackAppOptions): Promise<RunningSlackApp> {
+  const desk = createAnswerDesk({
+    router: options.router,
+    slack: { botToken: options.botToken, ...(options.apiUrl ? { apiUrl: options.apiUrl } : {}), ...(options.encode ? { encode: options.encode } : {}) },
+    log: options.log ?? ((level, text) => console[level](`[slack] ${text}`)),
+  });
+  const receiver = await startSlackReceiver({ ...options, handOff: (job) => void desk.answer(job) });
+  return {
+    ...receiver,
+    stop: async () => {
+      await receiver.stop();
+      await desk.idle();
     },
   };
 }

@@ -1,3 +1,3 @@
-export { createSlackApp, startSlackApp, type SlackAppOptions, type RunningSlackApp } from './createSlackApp.ts';
+export { createSlackApp, startSlackApp, startSlackReceiver, type SlackAppOptions, type SlackReceiverOptions, type RunningSlackApp } from './createSlackApp.ts';
 export { createSlackPoster, type SlackPosterOptions } from './slackPoster.ts';
 export { slackCommandName, slackCommandDescription } from './slackCommandName.ts';

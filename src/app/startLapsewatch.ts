@@ -1,8 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { hostname } from 'node:os';
 import { resolve } from 'node:path';
-import { createDiscordPoster, startDiscordBot, type RunningDiscordBot } from '../../adapters/discord/index.ts';
-import { startSlackApp, createSlackPoster, slackCommandName, type RunningSlackApp } from '../../adapters/slack/index.ts';
+import { createDiscordPoster } from '../../adapters/discord/discordPoster.ts';
+import { startReceiverThread, type RunningReceiverThread } from '../../adapters/receiverThread/startReceiverThread.ts';
+import { createSlackPoster } from '../../adapters/slack/slackPoster.ts';
+import { slackCommandName } from '../../adapters/slack/slackCommandName.ts';
 import { createTerminalPoster } from '../../adapters/terminal/terminalPoster.ts';
 import { runTerminalSession } from '../../adapters/terminal/terminalSession.ts';
 import { loadAppConfig } from '../config/appConfig.ts';
@@ -90,33 +92,30 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
   const metrics = processMetrics();
   metrics.setOutboxStatsSource(() => store.outbox.stats(clock.nowMs()));
   const posters: ChannelPoster[] = [createTerminalPoster(options.stdout)];
-  const stoppers: Array<() => Promise<void>> = [];
-  let slack: RunningSlackApp | null = null;
-  let discord: RunningDiscordBot | null = null;
+  let receivers: RunningReceiverThread | null = null;
   const httpPort = config.config.http.port;
-  try {
+  if (credentials.slack || credentials.discord) {
+    // Bolt and discord.js run in a thread of their own that only acknowledges; the router answers here.
+    try {
+      receivers = await startReceiverThread({
+        router,
+        ...(credentials.slack ? { slack: { ...credentials.slack, port: httpPort } } : {}),
+        ...(credentials.discord ? { discord: credentials.discord } : {}),
+        textRoutes: [{ path: '/metrics', render: async () => ({ contentType: metrics.registry.contentType, body: await metrics.registry.metrics() }) }],
+        log: (level, text) => logger[level](text),
+      });
+    } catch (error) {
+      await store.close();
+      return fail(`a chat platform did not start: ${error instanceof Error ? error.message : String(error)}`);
+    }
     if (credentials.slack) {
-      const metricsRoute = {
-        path: '/metrics',
-        handler: (_request: unknown, response: import('node:http').ServerResponse) => {
-          void metrics.registry.metrics().then((text) => response.writeHead(200, { 'content-type': metrics.registry.contentType }).end(text));
-        },
-      };
-      slack = await startSlackApp({ router, ...credentials.slack, port: httpPort, extraRoutes: [metricsRoute] });
-      stoppers.push(() => slack!.stop());
       posters.push(createSlackPoster({ botToken: credentials.slack.botToken, ...(credentials.slack.apiUrl ? { apiUrl: credentials.slack.apiUrl } : {}), warn: (text) => logger.warn(text) }));
-      logger.info({ mode: slack.mode, port: slack.port }, 'slack adapter started');
+      logger.info({ mode: receivers.slack?.mode, port: receivers.slack?.port }, 'slack adapter started');
     }
     if (credentials.discord) {
-      discord = await startDiscordBot({ router, ...credentials.discord, log: (level, text) => logger[level](text) });
-      stoppers.push(() => discord!.stop());
       posters.push(createDiscordPoster({ token: credentials.discord.token, ...(credentials.discord.apiUrl ? { apiUrl: credentials.discord.apiUrl } : {}) }));
       logger.info('discord adapter started');
     }
-  } catch (error) {
-    for (const stop of stoppers.reverse()) await stop().catch(() => {});
-    await store.close();
-    return fail(`a chat platform did not start: ${error instanceof Error ? error.message : String(error)}`);
   }
 
   const fetchSeries = forecast.source.fetchSeries.bind(forecast.source);
@@ -150,7 +149,7 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
   // The platforms' receiver answers /healthz itself; without one, a health server takes the port
   // when it is asked for (the terminal alone needs none).
   let health: RunningHealthServer | null = null;
-  if (!slack && (!terminalOnly || environment.LAPSEWATCH_HTTP_PORT)) {
+  if (!credentials.slack && (!terminalOnly || environment.LAPSEWATCH_HTTP_PORT)) {
     health = await startHealthServer({
       registry: metrics.registry,
       port: httpPort,
@@ -168,7 +167,7 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
     await scheduler.stop();
     await sender.stop();
     if (health) await health.close();
-    for (const stop of stoppers.reverse()) await stop().catch(() => {});
+    await receivers?.stop().catch(() => {});
     await store.close();
   };
 

@@ -1,0 +1,112 @@
+import { REST } from '@discordjs/rest';
+import { WebClient } from '@slack/web-api';
+import type { Message } from '../../src/render/message.ts';
+import type { CommandRouter } from '../../src/router/routerTypes.ts';
+import { defaultDiscordEncoder, type DiscordEncoder } from '../discord/discordEncoder.ts';
+import { fetchRequest } from '../discord/fetchRequest.ts';
+import { askRouter } from '../slack/askRouter.ts';
+import { defaultSlackEncoder, type SlackEncoder } from '../slack/slackEncoder.ts';
+import { uploadSlackImages } from '../slack/uploadSlackImages.ts';
+import type { AnswerJob, Ask } from './answerJob.ts';
+import { editDeferredReply } from './discordDeferredReply.ts';
+import { postToResponseUrl } from './slackResponseUrl.ts';
+
+export interface AnswerDeskOptions {
+  router: CommandRouter;
+  /** Needed for Slack answers with images (files are uploaded with the bot token). */
+  slack?: { botToken: string; apiUrl?: string; encode?: SlackEncoder };
+  discord?: { apiUrl?: string; encode?: DiscordEncoder };
+  log: (level: 'warn' | 'error', text: string) => void;
+  /** Per HTTP call of an answer. Default 10 s. */
+  timeoutMs?: number;
+}
+
+export interface AnswerDesk {
+  /** Asks the router and delivers the answer; never rejects (a failure is logged). */
+  answer(job: AnswerJob): Promise<void>;
+  /** Resolves when every answer under way has been delivered or has failed. */
+  idle(): Promise<void>;
+}
+
+/** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
+const INTERACTION_REPLIES_PER_SECOND = 1000;
+
+/** Errors and help go only to the person who asked; answers about a place go to the whole channel. */
+function slackVisibilityOf(message: Message): 'ephemeral' | 'in_channel' {
+  return message.kind === 'error' || message.kind === 'help' ? 'ephemeral' : 'in_channel';
+}
+
+/**
+ * Answers acknowledged questions: asks the router, then delivers over plain HTTP, whichever thread
+ * acknowledged them. Slack: the response URL (which works even where the bot is not a member), the
+ * images following as a file upload into the channel. Discord: an edit of the deferred reply.
+ */
+export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
+  const { router, log } = options;
+  const timeoutMs = options.timeoutMs ?? 10_000;
+  const slackEncode = options.slack?.encode ?? defaultSlackEncoder;
+  const discordEncode = options.discord?.encode ?? defaultDiscordEncoder;
+  // Replies are worth a couple of quick retries, not the client's default of ten over thirty
+  // minutes: an answer that late is no answer.
+  const slackClient = options.slack
+    ? new WebClient(options.slack.botToken, {
+        ...(options.slack.apiUrl ? { slackApiUrl: options.slack.apiUrl.endsWith('/') ? options.slack.apiUrl : `${options.slack.apiUrl}/` } : {}),
+        retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 },
+        timeout: timeoutMs,
+      })
+    : null;
+  // Interaction endpoints are not bound to the bot's global rate limit (Discord developer docs,
+  // "Receiving and Responding"); per-route limits and 429 answers are still honoured.
+  const discordRest = new REST({
+    ...(options.discord?.apiUrl ? { api: options.discord.apiUrl } : {}),
+    makeRequest: fetchRequest,
+    globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND,
+    timeout: timeoutMs,
+  });
+  const underWay = new Set<Promise<void>>();
+
+  function ask(question: Ask): Promise<Message> {
+    return askRouter(
+      () => (question.kind === 'command' ? router.handleCommand(question.request) : router.handleAction(question.request)),
+      (error) => log('error', `router failed on a ${question.kind}: ${String(error)}`),
+    );
+  }
+
+  async function deliver(job: AnswerJob, message: Message): Promise<void> {
+    if (job.platform === 'discord') {
+      await editDeferredReply(discordRest, job.applicationId, job.interactionToken, discordEncode(message));
+      return;
+    }
+    const { text, blocks, files } = slackEncode(message);
+    const responseType = slackVisibilityOf(message);
+    await postToResponseUrl(job.responseUrl, { response_type: responseType, replace_original: false, text, blocks }, timeoutMs);
+    if (responseType !== 'in_channel' || files.length === 0) return;
+    if (!slackClient) {
+      log('warn', `images not attached in ${job.channelId}: no Slack bot token to upload with`);
+      return;
+    }
+    const uploaded = await uploadSlackImages(slackClient, job.channelId, files);
+    if (!uploaded.ok) log('warn', `images not attached in ${job.channelId}: ${uploaded.reason}`);
+  }
+
+  async function answerOnce(job: AnswerJob): Promise<void> {
+    const message = await ask(job.ask);
+    try {
+      await deliver(job, message);
+    } catch (error) {
+      // An expired response URL or token, a deleted channel, the platform down: nobody else to tell.
+      log('warn', `answer not delivered on ${job.platform} (${job.ask.request.channelId}): ${error instanceof Error ? error.message : String(error)}`);
+    }
+  }
+
+  return {
+    answer(job) {
+      const pending = answerOnce(job).finally(() => underWay.delete(pending));
+      underWay.add(pending);
+      return pending;
+    },
+    async idle() {
+      while (underWay.size > 0) await Promise.allSettled([...underWay]);
+    },
+  };
+}

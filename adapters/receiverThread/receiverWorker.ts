@@ -1,0 +1,72 @@
+/**
+ * The receiver thread: Bolt and the discord.js gateway client, and nothing else. It acknowledges
+ * (Slack's ack, Discord's deferral) and hands each question to the main thread, which asks the
+ * router and answers over HTTP. With no router, store or rendering here, this thread's event loop
+ * is free when a command arrives, so acknowledgements do not wait behind answers.
+ */
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import { parentPort, workerData } from 'node:worker_threads';
+import { startDiscordReceiver, type RunningDiscordBot } from '../discord/createDiscordBot.ts';
+import { startSlackReceiver, type RunningSlackApp } from '../slack/createSlackApp.ts';
+import type { HandOff } from '../answering/answerJob.ts';
+import type { FromReceiver, ReceiverThreadSettings, ToReceiver } from './receiverMessages.ts';
+
+const port = parentPort!;
+const settings = workerData.settings as ReceiverThreadSettings;
+const send = (message: FromReceiver): void => port.postMessage(message);
+const handOff: HandOff = (job) => send({ type: 'job', job });
+
+let nextRouteId = 1;
+const routeAnswers = new Map<number, (answer: Extract<ToReceiver, { type: 'route-answer' }>) => void>();
+
+/** A GET route answered by the main thread (it holds the metrics registry). */
+function mainThreadRoute(path: string) {
+  return {
+    path,
+    handler: (_request: IncomingMessage, response: ServerResponse) => {
+      const id = nextRouteId++;
+      const timer = setTimeout(() => {
+        routeAnswers.delete(id);
+        response.writeHead(503, { 'content-type': 'text/plain' }).end('main thread did not answer\n');
+      }, 5_000);
+      routeAnswers.set(id, (answer) => {
+        clearTimeout(timer);
+        response.writeHead(answer.status, { 'content-type': answer.contentType }).end(answer.body);
+      });
+      send({ type: 'route', id, path });
+    },
+  };
+}
+
+let slack: RunningSlackApp | null = null;
+let discord: RunningDiscordBot | null = null;
+
+async function stopAll(): Promise<void> {
+  await Promise.allSettled([slack?.stop(), discord?.stop()]);
+}
+
+port.on('message', (message: ToReceiver) => {
+  if (message.type === 'route-answer') {
+    routeAnswers.get(message.id)?.(message);
+    routeAnswers.delete(message.id);
+    return;
+  }
+  void stopAll().then(() => {
+    send({ type: 'stopped' });
+    port.close();
+  });
+});
+
+try {
+  if (settings.slack) {
+    slack = await startSlackReceiver({ ...settings.slack, extraRoutes: settings.textRoutePaths.map(mainThreadRoute), handOff });
+  }
+  if (settings.discord) {
+    discord = await startDiscordReceiver({ ...settings.discord, handOff, log: (level, text) => send({ type: 'log', level, text }) });
+  }
+  send({ type: 'ready', slack: slack ? { mode: slack.mode, port: slack.port } : null, discord: discord !== null });
+} catch (error) {
+  await stopAll();
+  send({ type: 'failed', error: error instanceof Error ? error.message : String(error) });
+  port.close();
+}
