@@ -5,8 +5,9 @@
  *  - this one seeds the store (channels and watches, untimed) and prints;
  *  - the stand-ins (standInsProcess.ts): the Open-Meteo stand-in on 127.0.0.1 with 50 ms of latency
  *    per request and invented demo data, and the Slack and Discord API stand-ins;
- *  - the bot (alertCycleBot.ts), started as `npm start` starts it: the compiled build when current
- *    and BOT_NODE_FLAGS. It runs the cycle (real HTTP source and forecast cache), delivers the queue
+ *  - the bot (alertCycleBot.ts), started as `npm start` starts it with both platforms configured:
+ *    the compiled build when current, BOT_NODE_FLAGS, the router in the main thread and the Slack
+ *    and Discord receivers (idle) in their own thread. It runs the cycle (real HTTP source and forecast cache), delivers the queue
  *    through the real posters, runs a second cycle on the same model run, and reports its memory.
  * Prints wall time, provider requests (goal: at most one per place and model run) and the bot's rss
  * high-water mark (the kernel's VmHWM, which counts start-up too). Goals: under 30 s, at most 200
@@ -15,9 +16,10 @@
  *   npm run bench alerts
  */
 import { pathToFileURL } from 'node:url';
-import { BOT_NODE_FLAGS } from '../src/app/botNodeFlags.ts';
+import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
 import type { AlertCheckReport } from '../src/schedule/alertCheckCycle.ts';
 import { openTempSqliteStore } from '../test/delivery/deliveryFixtures.ts';
+import { standInApplicationId } from '../test/adapters/discordStandIn.ts';
 import { startChild } from './childLink.ts';
 
 interface StandInsHello {
@@ -42,6 +44,12 @@ const PLACES = Number(process.env.LAPSEWATCH_BENCH_PLACES ?? 200);
 const progress = (text: string): void => void process.stderr.write(`alertCycle bench: ${text}\n`);
 const LATENCY_MS = 50;
 const BUDGET_MS = 300_000;
+/** The bot's flags as `npm start` sets them; LAPSEWATCH_BENCH_NODE_FLAGS="..." tries others (printed). */
+function botNodeFlags(): readonly string[] {
+  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
+  return tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
+}
+
 const GOALS = { wallSeconds: 30, requests: PLACES, rssMb: 200 };
 
 /** Invented points on a 0.25° grid over the interior West: distinct on the cache's 0.1° grid. */
@@ -64,6 +72,8 @@ interface BotMemory {
 interface BotHello {
   rssAtStartMb: number;
   rssOpenedMb: number;
+  rssReceiversMb: number;
+  receiverHeapMb: number;
   execArgv: string[];
   compiled: boolean;
 }
@@ -98,10 +108,10 @@ export async function runAlertCycleBench(): Promise<void> {
     const seedSeconds = (performance.now() - seedStartedAtMs) / 1000;
     progress(`seeded in ${seedSeconds.toFixed(1)} s`);
 
-    bot = await startChild('alertCycleBot.ts', [storeUrl, hello.forecastBaseUrl, hello.slackApiUrl, hello.discordApiUrl, String(nowMs)], 30_000, { preferCompiled: true, nodeFlags: BOT_NODE_FLAGS });
+    bot = await startChild('alertCycleBot.ts', [storeUrl, hello.forecastBaseUrl, hello.slackApiUrl, hello.discordApiUrl, String(nowMs), standInApplicationId], 30_000, { preferCompiled: true, nodeFlags: botNodeFlags(), environment: BOT_ENVIRONMENT });
     const botHello = bot.hello as unknown as BotHello;
     const requestsBefore = (await stats()).forecastRequests;
-    const cycle = await bot.ask<{ report: AlertCheckReport; seconds: number; memory: BotMemory; retainedHeapMb: number }>({ cmd: 'cycle' }, 120_000);
+    const cycle = await bot.ask<{ report: AlertCheckReport; seconds: number; memory: BotMemory; resident: Record<string, number>; retainedHeapMb: number }>({ cmd: 'cycle' }, 120_000);
     const requests = (await stats()).forecastRequests - requestsBefore;
     progress(`cycle done in ${cycle.seconds.toFixed(1)} s`);
     const delivered = await bot.ask<{ delivery: { posted: number; left: number; seconds: number; budgetSeconds: number }; memory: BotMemory; retainedHeapMb: number }>({ cmd: 'deliver' }, 120_000);
@@ -117,7 +127,7 @@ export async function runAlertCycleBench(): Promise<void> {
 
     const verdict = (met: boolean): string => (met ? 'MET' : 'MISSED');
     console.log(`Alert-check cycle: ${CHANNELS} channels watching ${PLACES} invented places, forecast stand-in at ${LATENCY_MS} ms per request, SQLite store`);
-    console.log(`  bot process ${bot.pid}: ${botHello.compiled ? 'compiled build (dist/)' : 'TypeScript through tsx (no current build: run `npm run build`)'}, node ${botHello.execArgv.join(' ') || '(no flags)'}`);
+    console.log(`  bot process ${bot.pid}: ${botHello.compiled ? 'compiled build (dist/)' : 'TypeScript through tsx (no current build: run `npm run build`)'}, node ${botHello.execArgv.join(' ') || '(no flags)'}, ${Object.entries(BOT_ENVIRONMENT).map(([name, value]) => `${name}=${value}`).join(' ')}`);
     console.log(`  stand-ins (forecast, Slack, Discord) in process ${standIns.pid}; seeding in this process ${process.pid}; neither counts as the bot's`);
     console.log(`  seeding channels and watches (not timed)   ${seedSeconds.toFixed(1)} s`);
     console.log(`  cycle: fetch, assess, crossings, queue     ${cycle.seconds.toFixed(2)} s  (places checked ${report.placesChecked}, crossings recorded ${report.crossingsRecorded}, messages queued ${report.messagesQueued})`);
@@ -127,7 +137,8 @@ export async function runAlertCycleBench(): Promise<void> {
     console.log(`  provider requests, 2nd cycle same run      ${requestsSecondCycle}  (places checked ${again.report.placesChecked})`);
     console.log(`  bot rss high-water mark, start + cycle     ${cycleRssMb.toFixed(0)} MB  (goal < ${GOALS.rssMb} MB) ${verdict(cycleRssMb < GOALS.rssMb)}`);
     console.log(`  bot rss high-water mark, + delivery + 2nd  ${overallRssMb.toFixed(0)} MB  (goal < ${GOALS.rssMb} MB) ${verdict(overallRssMb < GOALS.rssMb)}`);
-    console.log(`  bot rss at start / store open / after cycle ${botHello.rssAtStartMb.toFixed(0)} / ${botHello.rssOpenedMb.toFixed(0)} / ${cycle.memory.rssMb.toFixed(0)} MB  (high-water: kernel VmHWM; sampled every 25 ms ${again.memory.sampledPeakRssMb.toFixed(0)} MB)`);
+    console.log(`  bot rss at start / store open / receivers up / after cycle ${botHello.rssAtStartMb.toFixed(0)} / ${botHello.rssOpenedMb.toFixed(0)} / ${botHello.rssReceiversMb.toFixed(0)} / ${cycle.memory.rssMb.toFixed(0)} MB  (high-water: kernel VmHWM; sampled every 25 ms ${again.memory.sampledPeakRssMb.toFixed(0)} MB; receiver thread's heap at start ${botHello.receiverHeapMb.toFixed(0)} MB)`);
+    console.log(`  bot resident after the cycle, by kind      ${Object.entries(cycle.resident).map(([kind, value]) => `${kind} ${value.toFixed(0)}`).join(', ')} MB`);
     console.log(`  bot heap used: peak cycle / peak overall   ${cycle.memory.peakHeapUsedMb.toFixed(0)} / ${again.memory.peakHeapUsedMb.toFixed(0)} MB`);
     console.log(`  bot heap retained after a full GC          ${cycle.retainedHeapMb.toFixed(0)} MB after the cycle, ${delivered.retainedHeapMb.toFixed(0)} MB after delivery (the rest of each peak was garbage not yet collected)`);
     console.log(`  stand-ins' process, rss / heap high-water  ${childStats.peakRssMb.toFixed(0)} / ${childStats.peakHeapUsedMb.toFixed(0)} MB  (not the bot's)`);

@@ -6,6 +6,8 @@
 // what the adapters cost from what the router and its pictures cost. The platform stand-ins and the
 // load generator run in a child process (chatLoadProcess.ts), so this process holds only the bot
 // (the Bolt app or the discord.js client, and the router): its CPU and memory are the bot's.
+// Each is run twice: with the receivers in their own worker thread, as `npm start` runs them, and
+// with everything in one thread, so the two sit side by side.
 // Run: npx tsx bench/chatLoad.ts [--real-only]. Bounded: each run stops at its deadline whatever
 // happens, and the child stops itself after 150 s.
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -16,7 +18,9 @@ import { LogLevel } from '@slack/bolt';
 import { startSlackApp } from '../adapters/slack/index.ts';
 import { slackCommandName } from '../adapters/slack/slackCommandName.ts';
 import { startDiscordBot } from '../adapters/discord/index.ts';
+import { startReceiverThread } from '../adapters/receiverThread/startReceiverThread.ts';
 import { discordCommandName } from '../adapters/discord/commands.ts';
+import { ANSWER_THREAD_NICE } from '../src/app/botRuntime.ts';
 import { buildForecastSource } from '../src/app/buildForecastSource.ts';
 import { parseAppConfig } from '../src/config/appConfig.ts';
 import { DEMO_PLACES } from '../src/forecast/demoPlaces.ts';
@@ -35,6 +39,8 @@ import { memorySampler, startChild, type ChildLink } from './childLink.ts';
 import type { LoadAnswer, LoadRequest } from './chatLoadProcess.ts';
 
 type RouterKind = 'real' | 'double';
+/** Where the receivers run: their own worker thread (as `npm start` runs them) or the router's thread. */
+type Threading = 'receiver-thread' | 'same-thread';
 type PlatformName = 'slack' | 'discord';
 
 export interface ChatLoadOptions {
@@ -45,6 +51,7 @@ export interface ChatLoadOptions {
   /** Per-run bound (one router on one platform). */
   deadlineMs?: number;
   platforms?: PlatformName[];
+  threadings?: Threading[];
 }
 
 interface Sample {
@@ -56,6 +63,7 @@ interface Sample {
 
 interface RunResult extends Measured {
   router: RouterKind;
+  threading: Threading;
   platform: PlatformName;
   total: number;
   loadAverage1m: number;
@@ -210,47 +218,60 @@ async function driveLoad(child: ChildLink, log: AnswerLog, options: Required<Cha
   };
 }
 
-async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>): Promise<Measured> {
+const THREAD_LOG = (level: string, text: string): void => {
+  if (level !== 'info') console.error(`  receiver thread ${level}: ${text}`);
+};
+
+async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
   const secret = 'bench-signing-secret';
   const child = await startChild('chatLoadProcess.ts', ['slack'], 30_000);
   try {
-    const slack = await startSlackApp({ router: log, botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR });
+    const receiver = { botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR };
+    const running =
+      threading === 'same-thread'
+        ? await startSlackApp({ router: log, ...receiver })
+        : await startReceiverThread({ router: log, slack: receiver, log: THREAD_LOG, answerThreadNice: ANSWER_THREAD_NICE });
+    const port = 'port' in running ? running.port : running.slack!.port;
     try {
-      return await driveLoad(child, log, options, { commandName: slackCommandName(), botUrl: `http://127.0.0.1:${slack.port}/slack/events`, secret });
+      return await driveLoad(child, log, options, { commandName: slackCommandName(), botUrl: `http://127.0.0.1:${port}/slack/events`, secret });
     } finally {
-      await slack.stop();
+      await running.stop();
     }
   } finally {
     await child.stop();
   }
 }
 
-async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>): Promise<Measured> {
+async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
   const child = await startChild('chatLoadProcess.ts', ['discord'], 30_000);
   try {
-    const bot = await startDiscordBot({ router: log, token: 'bench.discord.token', applicationId: String(child.hello.applicationId), apiUrl: String(child.hello.apiUrl), log: () => {} });
+    const receiver = { token: 'bench.discord.token', applicationId: String(child.hello.applicationId), apiUrl: String(child.hello.apiUrl) };
+    const running =
+      threading === 'same-thread'
+        ? await startDiscordBot({ router: log, ...receiver, log: () => {} })
+        : await startReceiverThread({ router: log, discord: receiver, log: THREAD_LOG, answerThreadNice: ANSWER_THREAD_NICE });
     try {
       return await driveLoad(child, log, options, { commandName: discordCommandName() });
     } finally {
-      await bot.stop();
+      await running.stop();
     }
   } finally {
     await child.stop();
   }
 }
 
-async function runOne(kind: RouterKind, platform: PlatformName, options: Required<ChatLoadOptions>): Promise<RunResult> {
+async function runOne(kind: RouterKind, platform: PlatformName, threading: Threading, options: Required<ChatLoadOptions>): Promise<RunResult> {
   // Each run starts from the same state: a fresh store, the forecast cache warm, no finished picture held.
   resetRasterizeCache();
   const underLoad: RouterUnderLoad = kind === 'real' ? await realRouter() : { router: new RouterDouble({ withImage: true }), close: async () => {} };
   const log = new AnswerLog(underLoad.router);
   const loadAverage1m = loadavg()[0]!;
   try {
-    const measured = platform === 'slack' ? await slackLoad(log, options) : await discordLoad(log, options);
+    const measured = platform === 'slack' ? await slackLoad(log, options, threading) : await discordLoad(log, options, threading);
     const stats = rasterizeCacheStats();
     const before = log.picturesAtStart;
     const pictures = kind === 'real' ? `; ${stats.rasterized - before.rasterized} rasterised, ${stats.hits - before.hits} from the PNG cache` : '';
-    return { router: kind, platform, total: options.total, ...measured, loadAverage1m, answers: `${log.summary()}${pictures}` };
+    return { router: kind, threading, platform, total: options.total, ...measured, loadAverage1m, answers: `${log.summary()}${pictures}` };
   } finally {
     await underLoad.close();
   }
@@ -306,20 +327,25 @@ async function printPictureFigures(): Promise<void> {
   }
 }
 
+/** "real, own thread": the router, and where the receivers ran. */
+function runLabel(r: RunResult): string {
+  return `${r.router}, ${r.threading === 'receiver-thread' ? 'own thread' : 'same thread'}`;
+}
+
 function printTable(results: RunResult[], concurrency: number): void {
   const ms = (n: number) => (Number.isFinite(n) ? n.toFixed(1) : '-').padStart(7);
-  const header = `${'platform'.padEnd(8)} ${'router'.padEnd(13)} │ ${'ack p50'.padStart(7)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} ${'max'.padStart(7)} ${'<3 s'.padStart(6)} │ ${'full p50'.padStart(8)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} │ ${'ok/total'.padStart(8)} ${'wall s'.padStart(6)} ${'bot CPU ms/cmd'.padStart(14)} ${'load 1m'.padStart(7)}`;
+  const header = `${'platform'.padEnd(8)} ${'router, receivers'.padEnd(22)} │ ${'ack p50'.padStart(7)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} ${'max'.padStart(7)} ${'<3 s'.padStart(6)} │ ${'full p50'.padStart(8)} ${'p95'.padStart(7)} ${'p99'.padStart(7)} │ ${'ok/total'.padStart(8)} ${'wall s'.padStart(6)} ${'bot CPU ms/cmd'.padStart(14)} ${'load 1m'.padStart(7)}`;
   console.log(`\n${header}\n${'─'.repeat(header.length)}`);
   const row = (platform: string, label: string, samples: Sample[], total: number, rest: string) => {
     const acks = samples.map((s) => s.ackMs).sort((a, b) => a - b);
     const fulls = samples.map((s) => s.fullMs).sort((a, b) => a - b);
     const inWindow = samples.filter((s) => s.ackMs <= ACK_WINDOW_MS).length;
     console.log(
-      `${platform.padEnd(8)} ${label.padEnd(13)} │ ${ms(percentile(acks, 50))} ${ms(percentile(acks, 95))} ${ms(percentile(acks, 99))} ${ms(acks.at(-1) ?? Number.NaN)} ${`${((100 * inWindow) / total).toFixed(1)}%`.padStart(6)} │ ${ms(percentile(fulls, 50)).padStart(8)} ${ms(percentile(fulls, 95))} ${ms(percentile(fulls, 99))} │ ${`${samples.length}/${total}`.padStart(8)} ${rest}`,
+      `${platform.padEnd(8)} ${label.padEnd(22)} │ ${ms(percentile(acks, 50))} ${ms(percentile(acks, 95))} ${ms(percentile(acks, 99))} ${ms(acks.at(-1) ?? Number.NaN)} ${`${((100 * inWindow) / total).toFixed(1)}%`.padStart(6)} │ ${ms(percentile(fulls, 50)).padStart(8)} ${ms(percentile(fulls, 95))} ${ms(percentile(fulls, 99))} │ ${`${samples.length}/${total}`.padStart(8)} ${rest}`,
     );
   };
   for (const r of results) {
-    row(r.platform, r.router, r.samples, r.total, `${(r.wallMs / 1000).toFixed(2).padStart(6)} ${r.cpuMsPerCommand.toFixed(2).padStart(14)} ${r.loadAverage1m.toFixed(2).padStart(7)}`);
+    row(r.platform, runLabel(r), r.samples, r.total, `${(r.wallMs / 1000).toFixed(2).padStart(6)} ${r.cpuMsPerCommand.toFixed(2).padStart(14)} ${r.loadAverage1m.toFixed(2).padStart(7)}`);
     // The same run without its first wave, which is where the few cold pictures are rasterised.
     row('', `  after ${concurrency}`, r.samples.filter((s) => s.index >= concurrency), r.total - concurrency, '');
   }
@@ -328,7 +354,7 @@ function printTable(results: RunResult[], concurrency: number): void {
   console.log('Goals: every ack inside 3 s, ack p99 < 50 ms, full-answer p95 < 300 ms with the picture.');
   for (const r of results) {
     const failed = r.failures > 0 ? ` (first: ${r.firstFailure})` : '';
-    console.log(`  ${r.platform} ${r.router}: ${r.failures} failed${failed}; answers: ${r.answers}; bot rss high-water ${r.botPeakRssMb.toFixed(0)} MB; stand-in + load generator ${r.childCpuMsPerCommand.toFixed(2)} CPU ms/cmd (child process, not the bot's)`);
+    console.log(`  ${r.platform} ${runLabel(r)}: ${r.failures} failed${failed}; answers: ${r.answers}; bot rss high-water ${r.botPeakRssMb.toFixed(0)} MB; stand-in + load generator ${r.childCpuMsPerCommand.toFixed(2)} CPU ms/cmd (child process, not the bot's)`);
   }
 }
 
@@ -339,17 +365,21 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
     concurrency: options.concurrency ?? 20,
     deadlineMs: options.deadlineMs ?? 18_000,
     platforms: options.platforms ?? ['slack', 'discord'],
+    threadings: options.threadings ?? ['receiver-thread', 'same-thread'],
   };
   console.log(`chat load: ${settings.total} commands per platform and router, ${settings.concurrency} at a time, loopback, forecast cache warm, images on`);
   console.log(`  command mix (repeats): ${COMMAND_MIX.map((text) => `"${text}"`).join(', ')}`);
   console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks)`);
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
-  console.log('pictures (median; rasterising runs on the event loop, so it delays every acknowledgement behind it):');
+  console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${ANSWER_THREAD_NICE}, as under npm start`);
+  console.log('pictures (median; rasterising runs on the router thread: with the receivers in that thread too it delays every acknowledgement behind it):');
   await printPictureFigures();
   const results: RunResult[] = [];
   for (const platform of settings.platforms) {
-    for (const kind of settings.routers) results.push(await runOne(kind, platform, settings));
+    for (const kind of settings.routers) {
+      for (const threading of settings.threadings) results.push(await runOne(kind, platform, threading, settings));
+    }
   }
   printTable(results, settings.concurrency);
 }

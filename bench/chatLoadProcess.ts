@@ -7,7 +7,8 @@
  *   node --import tsx bench/chatLoadProcess.ts slack|discord
  *
  * Timing, all on this side of the wire:
- * - Slack: ack = the receiver's HTTP 200 to the signed slash command; full = the response-URL post
+ * - Slack: ack = the receiver's HTTP 200 to the signed slash command, timed in a thread of its own
+ *   (slackLoadThread.ts) so that the stand-in's work cannot delay it; full = the response-URL post
  *   and, when that answer is posted in the channel (lookups and detail views carry a picture), the
  *   finished upload into the caller's channel.
  * - Discord: ack = the deferred-reply callback; full = the edit of the original reply, which
@@ -15,7 +16,8 @@
  */
 import { memorySampler, serveParent } from './childSide.ts';
 import { startSlackStandIn, type SlackStandIn } from '../test/adapters/slackStandIn.ts';
-import { postSigned, slashCommandForm } from '../test/adapters/slackSigning.ts';
+import { Worker } from 'node:worker_threads';
+import type { Arrival, SlackLoadResult, SlackLoadSettings } from './slackLoadThread.ts';
 import { standInApplicationId, startDiscordStandIn, type DiscordStandIn } from '../test/adapters/discordStandIn.ts';
 import type { RecordedCall } from '../test/adapters/recordingServer.ts';
 
@@ -74,37 +76,6 @@ function forgetBody(call: RecordedCall): void {
   call.headers = {};
 }
 
-function slackSender(standIn: SlackStandIn, request: LoadRequest): Sender {
-  const { botUrl, secret } = request;
-  if (!botUrl || !secret) throw new Error('a Slack load needs botUrl and secret');
-  const answered = new Map<string, (answer: { at: number; inChannel: boolean }) => void>();
-  const uploaded = new Map<string, (at: number) => void>();
-  const close = standIn.onCall((call) => {
-    const at = performance.now();
-    if (call.path.startsWith('/respond/')) answered.get(call.path.slice('/respond/'.length))?.({ at, inChannel: call.body?.response_type === 'in_channel' });
-    if (call.path === '/api/files.completeUploadExternal') uploaded.get(call.body?.channel_id)?.(at);
-    forgetBody(call);
-  });
-  // One channel per concurrent caller (20 incident channels asking again and again, as on a busy
-  // fire): a caller waits for its answer before asking again, so an upload is matched by its channel.
-  const send: SendOne = async (index, workerId, text, deadline) => {
-    const key = request.warmUp ? `warm-up-${index}` : String(index);
-    const channelId = request.warmUp ? 'CBENCHWARMUP' : `CBENCH${workerId}`;
-    const responded = new Promise<{ at: number; inChannel: boolean }>((resolve) => answered.set(key, resolve));
-    const imaged = new Promise<number>((resolve) => uploaded.set(channelId, resolve));
-    const t0 = performance.now();
-    const ack = await postSigned(botUrl, slashCommandForm(request.commandName, text, standIn.responseUrl(key), channelId), { secret });
-    const ackAt = performance.now();
-    if (ack.status !== 200) throw new Error(`ack ${ack.status}`);
-    const response = await waitUntil(responded, deadline, `response-URL post for "${text}"`);
-    answered.delete(key);
-    // Answers for the whole channel are the ones with a picture; it follows as an upload.
-    const fullAt = response.inChannel ? Math.max(response.at, await waitUntil(imaged, deadline, `upload for "${text}"`)) : response.at;
-    return { index, ackMs: ackAt - t0, fullMs: fullAt - t0 };
-  };
-  return { send, close };
-}
-
 function discordSender(standIn: DiscordStandIn, request: LoadRequest): Sender {
   const deferred = new Map<string, (at: number) => void>();
   const edited = new Map<string, (at: number) => void>();
@@ -142,10 +113,70 @@ if (platform !== 'slack' && platform !== 'discord') throw new Error('usage: chat
 const memory = memorySampler();
 const slack = platform === 'slack' ? await startSlackStandIn() : null;
 const discord = platform === 'discord' ? await startDiscordStandIn() : null;
+// The timing side decodes no uploaded picture: its event loop stays free to time acknowledgements.
+(slack ?? discord)!.skipMultipartBodies();
+
+let generatorThread: Promise<Worker> | null = null;
+
+/** Started once, before the first (untimed) load, so no timed load pays for its start-up. */
+function slackGenerator(): Promise<Worker> {
+  generatorThread ??= new Promise((resolve, reject) => {
+    // Through the same bootstrap as the receiver thread: a worker does not inherit tsx from --import.
+    const worker = new Worker(new URL('../adapters/receiverThread/workerBootstrap.mjs', import.meta.url), {
+      workerData: { entry: new URL('./slackLoadThread.ts', import.meta.url).href },
+    });
+    worker.once('message', () => resolve(worker));
+    worker.once('error', reject);
+    worker.unref();
+  });
+  return generatorThread;
+}
+
+/**
+ * Slack: the load generator runs in its own thread (slackLoadThread.ts) and this thread, the
+ * stand-in's, forwards when each answer and upload arrived.
+ */
+async function slackLoad(standIn: SlackStandIn, request: LoadRequest): Promise<SlackLoadResult> {
+  const { botUrl, secret } = request;
+  if (!botUrl || !secret) throw new Error('a Slack load needs botUrl and secret');
+  const settings: SlackLoadSettings = {
+    botUrl, secret, commandName: request.commandName, texts: request.texts, total: request.total, concurrency: request.concurrency,
+    deadlineMs: request.deadlineMs, warmUp: request.warmUp, responseUrlPrefix: standIn.responseUrl(''),
+  };
+  const generator = await slackGenerator();
+  const close = standIn.onCall((call) => {
+    const atMs = performance.timeOrigin + performance.now();
+    let arrival: Arrival | null = null;
+    if (call.path.startsWith('/respond/')) arrival = { kind: 'respond', key: call.path.slice('/respond/'.length), atMs, inChannel: call.body?.response_type === 'in_channel' };
+    if (call.path === '/api/files.completeUploadExternal') arrival = { kind: 'uploaded', channelId: String(call.body?.channel_id), atMs };
+    if (arrival) generator.postMessage(arrival);
+    forgetBody(call);
+  });
+  try {
+    const finished = new Promise<SlackLoadResult>((resolve, reject) => {
+      generator.once('message', resolve);
+      generator.once('error', reject);
+    });
+    generator.postMessage({ kind: 'run', settings });
+    return await finished;
+  } finally {
+    close();
+  }
+}
 
 async function load(request: LoadRequest): Promise<LoadAnswer> {
-  if (discord) await discord.identified(10_000);
-  const sender = slack ? slackSender(slack, request) : discordSender(discord!, request);
+  if (slack) {
+    const generator = slackGenerator();
+    await generator;
+    memory.reset();
+    const started = performance.now();
+    const cpuAtStart = process.cpuUsage();
+    const result = await slackLoad(slack, request);
+    const cpu = process.cpuUsage(cpuAtStart);
+    return { ...result, wallMs: performance.now() - started, cpuMsPerCommand: (cpu.user + cpu.system) / 1000 / Math.max(1, result.samples.length), peakRssMb: memory.peakRssMb() };
+  }
+  await discord!.identified(10_000);
+  const sender = discordSender(discord!, request);
   const samples: LoadSample[] = [];
   let failures = 0;
   let firstFailure: string | null = null;

@@ -35,6 +35,8 @@ export interface ChildOptions {
   preferCompiled?: boolean;
   /** Node flags before the script, e.g. the bot's BOT_NODE_FLAGS. */
   nodeFlags?: readonly string[];
+  /** Added to this process's environment, e.g. the bot's BOT_ENVIRONMENT. */
+  environment?: Readonly<Record<string, string>>;
 }
 
 /**
@@ -46,6 +48,7 @@ export async function startChild(script: string, args: string[], readyTimeoutMs:
   const loader = module.compiled ? [] : ['--import', 'tsx'];
   const child = spawn(process.execPath, [...(options.nodeFlags ?? []), ...loader, module.path, ...args], {
     cwd: REPO_ROOT,
+    env: { ...process.env, ...options.environment },
     stdio: ['pipe', 'pipe', 'inherit'],
   });
   const waiting = new Map<number, (answer: Json) => void>();

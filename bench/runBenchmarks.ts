@@ -2,13 +2,32 @@
  * `npm run bench [name ...]`: runs the benchmarks one after another and prints their figures. Goals
  * are checked here by a person reading the figures, never by timed unit tests.
  */
+import { spawn } from 'node:child_process';
 import { loadavg } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
+
+/**
+ * The chat benchmark holds the bot in its own process, so that process is started as `npm start`
+ * starts the bot: BOT_NODE_FLAGS and BOT_ENVIRONMENT (LAPSEWATCH_BENCH_NODE_FLAGS="..." tries
+ * other flags; the benchmark prints the ones it ran with).
+ */
+async function runChatInBotProcess(): Promise<void> {
+  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
+  const flags = tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
+  const child = spawn(process.execPath, [...flags, '--import', 'tsx', fileURLToPath(new URL('./chatLoad.ts', import.meta.url))], {
+    env: { ...process.env, ...BOT_ENVIRONMENT },
+    stdio: 'inherit',
+  });
+  const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
+  if (code !== 0) throw new Error(`the chat benchmark's process exited with code ${code}`);
+}
 
 const BENCHMARKS: Record<string, () => Promise<{ run: () => Promise<void> }>> = {
   core: async () => ({ run: (await import('./coreAnalysis.ts')).runCoreAnalysisBench }),
   series: async () => ({ run: (await import('./seriesAssessment.ts')).runSeriesAssessmentBench }),
   http: async () => ({ run: (await import('./httpSource.ts')).runHttpSourceBench }),
-  chat: async () => ({ run: (await import('./chatLoad.ts')).runChatLoadBench }),
+  chat: async () => ({ run: runChatInBotProcess }),
   alerts: async () => ({ run: (await import('./alertCycle.ts')).runAlertCycleBench }),
 };
 

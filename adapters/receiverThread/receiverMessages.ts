@@ -14,7 +14,7 @@ export type LogLevelName = 'info' | 'warn' | 'error';
 
 /** Receiver thread to main thread. */
 export type FromReceiver =
-  | { type: 'ready'; slack: { mode: 'http' | 'socket'; port: number } | null; discord: boolean }
+  | { type: 'ready'; slack: { mode: 'http' | 'socket'; port: number } | null; discord: boolean; heapUsedMb: number }
   | { type: 'failed'; error: string }
   | { type: 'job'; job: AnswerJob }
   | { type: 'log'; level: LogLevelName; text: string }

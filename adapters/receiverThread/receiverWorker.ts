@@ -5,6 +5,7 @@
  * is free when a command arrives, so acknowledgements do not wait behind answers.
  */
 import type { IncomingMessage, ServerResponse } from 'node:http';
+import { getHeapStatistics } from 'node:v8';
 import { parentPort, workerData } from 'node:worker_threads';
 import { startDiscordReceiver, type RunningDiscordBot } from '../discord/createDiscordBot.ts';
 import { startSlackReceiver, type RunningSlackApp } from '../slack/createSlackApp.ts';
@@ -64,7 +65,7 @@ try {
   if (settings.discord) {
     discord = await startDiscordReceiver({ ...settings.discord, handOff, log: (level, text) => send({ type: 'log', level, text }) });
   }
-  send({ type: 'ready', slack: slack ? { mode: slack.mode, port: slack.port } : null, discord: discord !== null });
+  send({ type: 'ready', slack: slack ? { mode: slack.mode, port: slack.port } : null, discord: discord !== null, heapUsedMb: getHeapStatistics().used_heap_size / 2 ** 20 });
 } catch (error) {
   await stopAll();
   send({ type: 'failed', error: error instanceof Error ? error.message : String(error) });

@@ -1,3 +1,4 @@
+import { getPriority, setPriority } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
@@ -14,21 +15,45 @@ export interface ReceiverThreadOptions {
   log: (level: LogLevelName, text: string) => void;
   /** How long start-up may take (Bolt listening, Discord READY). Default 40 s. */
   readyTimeoutMs?: number;
+  /**
+   * Nice value for the calling (answering) thread once the receiver thread runs, so that under CPU
+   * contention the kernel runs acknowledgements first. Linux nice values are per thread; the
+   * receiver thread keeps the process's. Absent: unchanged.
+   */
+  answerThreadNice?: number;
 }
 
 export interface RunningReceiverThread {
   /** The running thread's Slack receiver (a restarted thread asked for port 0 gets a new one). */
   readonly slack: { mode: 'http' | 'socket'; port: number } | null;
   readonly discord: boolean;
+  /** The receiver thread's V8 heap in use once it was ready, MB. */
+  readonly heapUsedAtReadyMb: number;
   /** How many times the thread has been restarted after dying. */
   restarts(): number;
   /** The thread now running (for its id and, in tests, to end it as a crash would). */
   currentWorker(): Worker;
-  /** Stops the receivers, then waits for answers under way. */
+  /** Stops the receivers, waits for answers under way, and gives the answering thread its priority back. */
   stop(): Promise<void>;
 }
 
 const RESTARTS_PER_MINUTE = 5;
+
+/**
+ * setpriority(PRIO_PROCESS, 0) acts on the calling thread alone on Linux; elsewhere it may act on
+ * the process. Returns the nice value to go back to, or null when nothing was changed.
+ */
+function lowerThisThread(nice: number, log: ReceiverThreadOptions['log']): number | null {
+  try {
+    const before = getPriority(0);
+    if (nice <= before) return null;
+    setPriority(0, nice);
+    return before;
+  } catch (error) {
+    log('warn', `could not lower the answering thread's priority: ${error instanceof Error ? error.message : String(error)}`);
+    return null;
+  }
+}
 
 /** The worker module beside this one: .ts through tsx when running the sources, .js when compiled. */
 function newReceiverWorker(settings: ReceiverThreadSettings): Worker {
@@ -144,12 +169,16 @@ export async function startReceiverThread(options: ReceiverThreadOptions): Promi
   }
 
   let current = await launch();
+  const niceBefore = options.answerThreadNice === undefined ? null : lowerThisThread(options.answerThreadNice, log);
   return {
     get slack() {
       return current.slack;
     },
     get discord() {
       return current.discord;
+    },
+    get heapUsedAtReadyMb() {
+      return current.heapUsedMb;
     },
     restarts: () => restartCount,
     currentWorker: () => worker,
@@ -162,6 +191,14 @@ export async function startReceiverThread(options: ReceiverThreadOptions): Promi
       await exited;
       clearTimeout(timer);
       await desk.idle();
+      if (niceBefore !== null) {
+        // Going back up needs privilege (CAP_SYS_NICE) unless the limit allows it; at worst it stays low.
+        try {
+          setPriority(0, niceBefore);
+        } catch {
+          /* the thread keeps the lower priority */
+        }
+      }
     },
   };
 }

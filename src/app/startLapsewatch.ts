@@ -21,6 +21,7 @@ import { createSummaryCycle, realSummaryDeps } from '../schedule/summaryCycle.ts
 import { openStore } from '../store/openStore.ts';
 import { formatConfigProblem } from '../watch/rules/configProblem.ts';
 import { loadRulesFile } from '../watch/rules/loadRules.ts';
+import { ANSWER_THREAD_NICE } from './botRuntime.ts';
 import { buildForecastSource } from './buildForecastSource.ts';
 import { clockFromEnvironment } from './demoClock.ts';
 import { readPlatformCredentials } from './platformCredentials.ts';
@@ -103,6 +104,7 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
         ...(credentials.discord ? { discord: credentials.discord } : {}),
         textRoutes: [{ path: '/metrics', render: async () => ({ contentType: metrics.registry.contentType, body: await metrics.registry.metrics() }) }],
         log: (level, text) => logger[level](text),
+        answerThreadNice: ANSWER_THREAD_NICE,
       });
     } catch (error) {
       await store.close();

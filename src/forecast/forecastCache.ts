@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { describeLocation } from './describeLocation.ts';
 import { forecastFailure } from './forecastFailure.ts';
-import type { ForecastLocation, ForecastResult, ForecastSource, ForecastWindow } from './forecastSource.ts';
+import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastSource, ForecastWindow } from './forecastSource.ts';
+import { packSeries, unpackSeries, type PackedSeries } from './packedSeries.ts';
 
 const modelCycleSchema = z.object({
   /** A new run every this many hours (GFS: 6). */
@@ -21,6 +22,11 @@ export const forecastCacheConfigSchema = z.object({
   }),
   defaultCycle: modelCycleSchema.default({ intervalHours: 6, availabilityDelayHours: 5 }),
   maxEntries: z.number().int().positive().default(5000),
+  /**
+   * The most recently used series are also kept as objects, so a place asked about again gets the
+   * very same series (the router assesses a series once, by identity); the rest are held packed.
+   */
+  maxUnpacked: z.number().int().nonnegative().default(16),
 });
 
 export type ForecastCacheConfigInput = z.input<typeof forecastCacheConfigSchema>;
@@ -35,7 +41,8 @@ export interface ForecastCacheStats {
 }
 
 interface Entry {
-  result: ForecastResult & { ok: true };
+  /** Held packed: one place's series is ~0.3 MB of objects, ~75 kB packed. */
+  packed: PackedSeries;
   expiresMs: number;
 }
 
@@ -51,6 +58,8 @@ export class ForecastCache implements ForecastSource {
   readonly stats: ForecastCacheStats = { hits: 0, misses: 0, joined: 0 };
   private readonly config: z.output<typeof forecastCacheConfigSchema>;
   private readonly entries = new Map<string, Entry>();
+  /** Series as objects for the most recently used keys, oldest first. */
+  private readonly unpacked = new Map<string, ForecastSeries>();
   private readonly inFlight = new Map<string, Promise<ForecastResult>>();
 
   constructor(
@@ -89,7 +98,7 @@ export class ForecastCache implements ForecastSource {
       const entry = this.entries.get(key);
       if (entry && entry.expiresMs > now) {
         this.stats.hits++;
-        results[index] = relabel(entry.result, location);
+        results[index] = relabel({ ok: true, series: this.seriesOf(key, entry) }, location);
         return;
       }
       let flight = this.inFlight.get(key);
@@ -110,7 +119,8 @@ export class ForecastCache implements ForecastSource {
         upstream.forEach((request, position) => {
           const answer = answers[position];
           if (answer.ok) {
-            this.store(request.key, { result: answer, expiresMs: run.expiresMs });
+            this.store(request.key, { packed: packSeries(answer.series), expiresMs: run.expiresMs });
+            this.keepUnpacked(request.key, answer.series);
           }
           this.inFlight.delete(request.key);
           request.settle(answer);
@@ -151,18 +161,36 @@ export class ForecastCache implements ForecastSource {
     return `${this.config.model}|${runSlotMs}|${latitude}|${longitude}|${elevation}|${startHourMs}|${window.hours}`;
   }
 
+  private seriesOf(key: string, entry: Entry): ForecastSeries {
+    const known = this.unpacked.get(key);
+    const series = known ?? unpackSeries(entry.packed);
+    this.keepUnpacked(key, series);
+    return series;
+  }
+
+  private keepUnpacked(key: string, series: ForecastSeries): void {
+    this.unpacked.delete(key);
+    if (this.config.maxUnpacked === 0) return;
+    this.unpacked.set(key, series);
+    if (this.unpacked.size > this.config.maxUnpacked) this.unpacked.delete(this.unpacked.keys().next().value as string);
+  }
+
   private store(key: string, entry: Entry): void {
     this.entries.delete(key);
     this.entries.set(key, entry);
     if (this.entries.size <= this.config.maxEntries) return;
     const now = this.nowMs();
     for (const [oldKey, oldEntry] of this.entries) {
-      if (oldEntry.expiresMs <= now) this.entries.delete(oldKey);
+      if (oldEntry.expiresMs <= now) {
+        this.entries.delete(oldKey);
+        this.unpacked.delete(oldKey);
+      }
     }
     // Still full: drop the oldest stored.
     while (this.entries.size > this.config.maxEntries) {
       const oldest = this.entries.keys().next().value as string;
       this.entries.delete(oldest);
+      this.unpacked.delete(oldest);
     }
   }
 }

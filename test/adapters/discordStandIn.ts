@@ -109,9 +109,9 @@ export class DiscordStandIn extends RecordingServer {
     return this.calls.find((call) => call.path.startsWith(`/api/v10/interactions/${interactionId}/`));
   }
 
-  /** The JSON of a request whether sent plain or as multipart payload_json. */
+  /** The JSON of a request whether sent plain or as multipart payload_json; {} for a body left unparsed (skipMultipartBodies). */
   static payloadOf(call: RecordedCall): any {
-    return typeof call.body?.payload_json === 'string' ? JSON.parse(call.body.payload_json) : call.body;
+    return typeof call.body?.payload_json === 'string' ? JSON.parse(call.body.payload_json) : (call.body ?? {});
   }
 
   override async stop(): Promise<void> {

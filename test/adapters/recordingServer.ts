@@ -39,14 +39,14 @@ export interface Reply {
 
 export type Handler = (call: RecordedCall) => Reply | Promise<Reply>;
 
-async function parseBody(request: IncomingMessage, raw: Buffer): Promise<any> {
+async function parseBody(request: IncomingMessage, raw: Buffer, parseMultipart: boolean): Promise<any> {
   const type = request.headers['content-type'] ?? '';
   if (raw.length === 0) return undefined;
   if (type.includes('application/json')) return JSON.parse(raw.toString('utf8'));
   if (type.includes('application/x-www-form-urlencoded')) {
     return Object.fromEntries(new URLSearchParams(raw.toString('utf8')));
   }
-  if (type.includes('multipart/form-data')) {
+  if (type.includes('multipart/form-data') && parseMultipart) {
     const form = await new Response(raw, { headers: { 'content-type': type } }).formData();
     const fields: Record<string, unknown> = {};
     for (const [name, value] of form.entries()) {
@@ -65,6 +65,7 @@ export class RecordingServer {
   private readonly listeners = new Set<() => void>();
   private readonly callListeners = new Set<(call: RecordedCall) => void>();
   private port = 0;
+  private parseMultipart = true;
 
   constructor(private readonly handle: Handler) {
     this.server = createServer((request, response) => void this.serve(request, response));
@@ -95,6 +96,14 @@ export class RecordingServer {
 
   clearFaults(): void {
     this.faults.length = 0;
+  }
+
+  /**
+   * Leaves multipart bodies (images) unparsed: a benchmark's stand-in then spends its time on
+   * timing, not on decoding PNG uploads it never reads.
+   */
+  skipMultipartBodies(): void {
+    this.parseMultipart = false;
   }
 
   /** Told of every call as it is recorded (benchmarks time answers this way); returns an unsubscribe. */
@@ -171,7 +180,7 @@ export class RecordingServer {
     };
     let reply: Reply;
     try {
-      call.body = await parseBody(request, raw);
+      call.body = await parseBody(request, raw, this.parseMultipart);
       const fault = this.takeFault(call.path);
       reply = fault
         ? {

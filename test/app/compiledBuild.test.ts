@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { compiledBuildIsCurrent, PACKAGE_ROOT } from '../../bin/compiledBuild.mjs';
-import { BOT_NODE_FLAGS } from '../../src/app/botNodeFlags.ts';
+import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../../src/app/botRuntime.ts';
 
 const folders: string[] = [];
 afterEach(() => {
@@ -46,8 +46,10 @@ describe('compiledBuildIsCurrent', () => {
 });
 
 describe('npm start', () => {
-  it("runs node with the bot's V8 flags", () => {
+  it("runs node with the bot's environment and V8 flags", () => {
     const start = (JSON.parse(readFileSync(join(PACKAGE_ROOT, 'package.json'), 'utf8')) as { scripts: Record<string, string> }).scripts.start!;
-    expect(start.split(/\s+/).slice(0, 1 + BOT_NODE_FLAGS.length)).toEqual(['node', ...BOT_NODE_FLAGS]);
+    const words = start.split(/\s+/);
+    const environment = Object.entries(BOT_ENVIRONMENT).map(([name, value]) => `${name}=${value}`);
+    expect(words.slice(0, environment.length + 1 + BOT_NODE_FLAGS.length)).toEqual([...environment, 'node', ...BOT_NODE_FLAGS]);
   });
 });
