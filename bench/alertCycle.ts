@@ -15,7 +15,9 @@
  *
  *   npm run bench alerts
  */
-import { pathToFileURL } from 'node:url';
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { compiledBuildIsCurrent } from '../bin/compiledBuild.mjs';
 import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
 import type { AlertCheckReport } from '../src/schedule/alertCheckCycle.ts';
 import { openTempSqliteStore } from '../test/delivery/deliveryFixtures.ts';
@@ -78,7 +80,16 @@ interface BotHello {
   compiled: boolean;
 }
 
+/** The bot runs from the compiled build, as after `npm ci`; a stale or missing one is rebuilt first. */
+function ensureCompiledBuild(): void {
+  if (compiledBuildIsCurrent()) return;
+  progress('the compiled build is missing or older than the sources: running `npm run build` first');
+  const built = spawnSync(process.execPath, [fileURLToPath(new URL('../scripts/build.mjs', import.meta.url))], { stdio: 'inherit' });
+  if (built.status !== 0) progress('the build failed; the bot runs its TypeScript through tsx (its memory figures are then higher)');
+}
+
 export async function runAlertCycleBench(): Promise<void> {
+  ensureCompiledBuild();
   const guard = setTimeout(() => {
     console.error(`alertCycle bench: over its ${BUDGET_MS / 1000} s budget, stopping`);
     process.exit(1);
