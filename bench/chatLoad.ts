@@ -218,6 +218,12 @@ async function driveLoad(child: ChildLink, log: AnswerLog, options: Required<Cha
   };
 }
 
+/** As npm start sets it; LAPSEWATCH_BENCH_ANSWER_NICE=N tries another (printed in the header). */
+function answerThreadNice(): number {
+  const tried = process.env.LAPSEWATCH_BENCH_ANSWER_NICE;
+  return tried === undefined ? ANSWER_THREAD_NICE : Number(tried);
+}
+
 const THREAD_LOG = (level: string, text: string): void => {
   if (level !== 'info') console.error(`  receiver thread ${level}: ${text}`);
 };
@@ -230,7 +236,7 @@ async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, thr
     const running =
       threading === 'same-thread'
         ? await startSlackApp({ router: log, ...receiver })
-        : await startReceiverThread({ router: log, slack: receiver, log: THREAD_LOG, answerThreadNice: ANSWER_THREAD_NICE });
+        : await startReceiverThread({ router: log, slack: receiver, log: THREAD_LOG, answerThreadNice: answerThreadNice() });
     const port = 'port' in running ? running.port : running.slack!.port;
     try {
       return await driveLoad(child, log, options, { commandName: slackCommandName(), botUrl: `http://127.0.0.1:${port}/slack/events`, secret });
@@ -249,7 +255,7 @@ async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>, t
     const running =
       threading === 'same-thread'
         ? await startDiscordBot({ router: log, ...receiver, log: () => {} })
-        : await startReceiverThread({ router: log, discord: receiver, log: THREAD_LOG, answerThreadNice: ANSWER_THREAD_NICE });
+        : await startReceiverThread({ router: log, discord: receiver, log: THREAD_LOG, answerThreadNice: answerThreadNice() });
     try {
       return await driveLoad(child, log, options, { commandName: discordCommandName() });
     } finally {
@@ -372,7 +378,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks)`);
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
-  console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${ANSWER_THREAD_NICE}, as under npm start`);
+  console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE})`);
   console.log('pictures (median; rasterising runs on the router thread: with the receivers in that thread too it delays every acknowledgement behind it):');
   await printPictureFigures();
   const results: RunResult[] = [];
