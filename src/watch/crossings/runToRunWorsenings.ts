@@ -1,9 +1,8 @@
-import { RULE_MEASURES } from '../rules/ruleCatalogue.ts';
 import type { Rule } from '../rules/rule.ts';
 import type { SeriesAssessment } from '../seriesAssessment.ts';
 import { localDateOf } from '../time/localClock.ts';
 import type { Crossing } from './crossing.ts';
-import { crossingMessage } from './crossingMessage.ts';
+import { crossingAt, episodeEnd, peakEffectiveAglM } from './crossingAt.ts';
 import { crossingKey, locationKey } from './locationKey.ts';
 import { ruleStatesOverHours } from './ruleState.ts';
 
@@ -17,7 +16,6 @@ export function runToRunWorsenings(previous: SeriesAssessment, current: SeriesAs
   const crossings: Crossing[] = [];
   for (const rule of rules) {
     if (!rule.enabled) continue;
-    const measure = RULE_MEASURES[rule.id];
     const previousStates = ruleStatesOverHours(previous.hours, rule);
     const previousOnByTime = new Map<string, boolean>();
     previous.hours.forEach((hour, index) => previousOnByTime.set(String(Date.parse(hour.validTime)), previousStates[index].on));
@@ -30,33 +28,18 @@ export function runToRunWorsenings(previous: SeriesAssessment, current: SeriesAs
       const localDate = localDateOf(hour.localTime);
       if (seenDays.has(localDate)) continue;
       seenDays.add(localDate);
-      let end = i;
-      let peakAglM = -Infinity;
-      while (end < current.hours.length && currentStates[end].on) peakAglM = Math.max(peakAglM, current.hours[end++].effectiveMixingHeightAglM);
-      const base: Omit<Crossing, 'message'> = {
-        key: crossingKey({ locationKey: place, ruleId: rule.id, localDate, direction: 'worsened' }),
-        locationKey: place,
-        direction: 'worsened',
-        ruleId: rule.id,
-        ruleName: rule.name,
-        severity: rule.severity,
-        unit: rule.unit,
-        validTime: hour.validTime,
-        localTime: hour.localTime,
-        localDate,
-        value: currentStates[i].value,
-        threshold: rule.threshold,
-        hysteresis: rule.hysteresis,
-        comparison: measure.comparison,
-        effectiveMixingHeightAglM: hour.effectiveMixingHeightAglM,
-        episodePeakEffectiveMixingHeightAglM: peakAglM,
-        modelRun: current.runTime,
-        previousModelRun: previous.runTime,
-        atSeriesStart: false,
-        hoursMissingBefore: 0,
-        repeatsSameDay: 0,
-      };
-      crossings.push({ ...base, message: crossingMessage(base, current.timeZone) });
+      crossings.push(
+        crossingAt(current, rule, i, currentStates[i].value, {
+          key: crossingKey({ locationKey: place, ruleId: rule.id, localDate, direction: 'worsened' }),
+          locationKey: place,
+          direction: 'worsened',
+          localDate,
+          episodePeakEffectiveMixingHeightAglM: peakEffectiveAglM(current, i, episodeEnd(currentStates, i)),
+          previousModelRun: previous.runTime,
+          atSeriesStart: false,
+          hoursMissingBefore: 0,
+        }),
+      );
     }
   }
   return crossings;
