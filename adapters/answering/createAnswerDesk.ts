@@ -3,8 +3,9 @@ import { WebClient } from '@slack/web-api';
 import type { Message } from '../../src/render/message.ts';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import { defaultDiscordEncoder, type DiscordEncoder } from '../discord/discordEncoder.ts';
-import { fetchRequest } from '../discord/fetchRequest.ts';
+import { interactionRestOptions } from '../discord/interactionRestOptions.ts';
 import { askRouter } from '../slack/askRouter.ts';
+import { answerClientOptions } from '../slack/slackClientOptions.ts';
 import { defaultSlackEncoder, type SlackEncoder } from '../slack/slackEncoder.ts';
 import { uploadSlackImages } from '../slack/uploadSlackImages.ts';
 import type { AnswerJob, Ask } from './answerJob.ts';
@@ -28,9 +29,6 @@ export interface AnswerDesk {
   idle(): Promise<void>;
 }
 
-/** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
-const INTERACTION_REPLIES_PER_SECOND = 1000;
-
 /** Errors and help go only to the person who asked; answers about a place go to the whole channel. */
 function slackVisibilityOf(message: Message): 'ephemeral' | 'in_channel' {
   return message.kind === 'error' || message.kind === 'help' ? 'ephemeral' : 'in_channel';
@@ -46,23 +44,8 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   const timeoutMs = options.timeoutMs ?? 10_000;
   const slackEncode = options.slack?.encode ?? defaultSlackEncoder;
   const discordEncode = options.discord?.encode ?? defaultDiscordEncoder;
-  // Replies are worth a couple of quick retries, not the client's default of ten over thirty
-  // minutes: an answer that late is no answer.
-  const slackClient = options.slack
-    ? new WebClient(options.slack.botToken, {
-        ...(options.slack.apiUrl ? { slackApiUrl: options.slack.apiUrl.endsWith('/') ? options.slack.apiUrl : `${options.slack.apiUrl}/` } : {}),
-        retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 },
-        timeout: timeoutMs,
-      })
-    : null;
-  // Interaction endpoints are not bound to the bot's global rate limit (Discord developer docs,
-  // "Receiving and Responding"); per-route limits and 429 answers are still honoured.
-  const discordRest = new REST({
-    ...(options.discord?.apiUrl ? { api: options.discord.apiUrl } : {}),
-    makeRequest: fetchRequest,
-    globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND,
-    timeout: timeoutMs,
-  });
+  const slackClient = options.slack ? new WebClient(options.slack.botToken, answerClientOptions(options.slack.apiUrl, timeoutMs)) : null;
+  const discordRest = new REST({ ...interactionRestOptions(options.discord?.apiUrl), timeout: timeoutMs });
   const underWay = new Set<Promise<void>>();
 
   function ask(question: Ask): Promise<Message> {

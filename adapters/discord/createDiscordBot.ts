@@ -3,7 +3,7 @@ import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import { discordCommandName } from './commands.ts';
-import { fetchRequest } from './fetchRequest.ts';
+import { interactionRestOptions } from './interactionRestOptions.ts';
 import type { DiscordEncoder } from './discordEncoder.ts';
 import { createInteractionHandler } from './discordInteractions.ts';
 
@@ -33,22 +33,12 @@ export interface RunningDiscordBot {
   stop(): Promise<void>;
 }
 
-/** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
-const INTERACTION_REPLIES_PER_SECOND = 1000;
-
 /** Builds the discord.js client with our interaction handler; `startDiscordReceiver` logs it in. */
 export function createDiscordBot(options: DiscordReceiverOptions & { handOff: HandOff }): Client {
   // Interactions arrive without any privileged intent; Guilds keeps the channel cache useful.
-  // This client only defers interactions (the answer edits the reply later through the
-  // interaction's webhook token, see answering/), and Discord's interaction endpoints are not bound
-  // to the bot's global rate limit (Discord developer docs, "Receiving and Responding": endpoints).
-  // The library's client-side 50 requests/s default would queue deferrals for no reason under a
-  // burst; per-route limits and 429 answers are still honoured. Channel posts go through the
-  // outbox's poster, a separate REST client that keeps the default.
-  const client = new Client({
-    intents: [GatewayIntentBits.Guilds],
-    rest: { makeRequest: fetchRequest, globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND, ...(options.apiUrl ? { api: options.apiUrl } : {}) },
-  });
+  // This client only defers interactions; the answer edits the reply later through the
+  // interaction's webhook token (see answering/).
+  const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: interactionRestOptions(options.apiUrl) });
   const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
   const handle = createInteractionHandler({ commandName: discordCommandName(), handOff: options.handOff, log });
   client.on(Events.InteractionCreate, (interaction) => {

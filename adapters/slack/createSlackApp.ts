@@ -5,6 +5,7 @@ import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import type { SlackEncoder } from './slackEncoder.ts';
+import { answerClientOptions } from './slackClientOptions.ts';
 import { registerSlackListeners } from './slackListeners.ts';
 import { slackCommandName } from './slackCommandName.ts';
 import { boltRoutes, healthRoute, routeListener, type ExtraRoute } from './healthRoute.ts';
@@ -42,27 +43,16 @@ export interface RunningSlackApp {
   stop(): Promise<void>;
 }
 
-function withTrailingSlash(url: string): string {
-  return url.endsWith('/') ? url : `${url}/`;
-}
-
 /** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackReceiver` runs it. */
 export function createSlackApp(options: SlackReceiverOptions & { handOff: HandOff }): { app: App; mode: 'http' | 'socket' } {
   const mode = options.appToken ? 'socket' : 'http';
   if (mode === 'http' && !options.signingSecret) {
     throw new Error('Slack HTTP mode needs SLACK_SIGNING_SECRET (or set SLACK_APP_TOKEN for Socket Mode)');
   }
-  // Replies are worth a couple of quick retries, not the client's default of ten over thirty
-  // minutes: an answer that late is no answer, and pending retries keep the process from exiting.
-  const clientOptions = {
-    ...(options.apiUrl ? { slackApiUrl: withTrailingSlash(options.apiUrl) } : {}),
-    retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 },
-    timeout: 10_000,
-  };
   const app = new App({
     token: options.botToken,
     logLevel: options.logLevel ?? LogLevel.WARN,
-    clientOptions,
+    clientOptions: answerClientOptions(options.apiUrl),
     ...(mode === 'socket'
       ? { socketMode: true, appToken: options.appToken }
       : { signingSecret: options.signingSecret, customRoutes: boltRoutes([healthRoute, ...(options.extraRoutes ?? [])]) }),
