@@ -18,11 +18,11 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { compiledBuildIsCurrent } from '../bin/compiledBuild.mjs';
-import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
+import { BOT_ENVIRONMENT } from '../src/app/botRuntime.ts';
 import type { AlertCheckReport } from '../src/schedule/alertCheckCycle.ts';
 import { openTempSqliteStore } from '../test/delivery/deliveryFixtures.ts';
 import { standInApplicationId } from '../test/adapters/discordStandIn.ts';
-import { startChild } from './childLink.ts';
+import { botNodeFlagsForBench, startChild } from './childLink.ts';
 
 interface StandInsHello {
   forecastBaseUrl: string;
@@ -46,12 +46,6 @@ const PLACES = Number(process.env.LAPSEWATCH_BENCH_PLACES ?? 200);
 const progress = (text: string): void => void process.stderr.write(`alertCycle bench: ${text}\n`);
 const LATENCY_MS = 50;
 const BUDGET_MS = 300_000;
-/** The bot's flags as `npm start` sets them; LAPSEWATCH_BENCH_NODE_FLAGS="..." tries others (printed). */
-function botNodeFlags(): readonly string[] {
-  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
-  return tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
-}
-
 const GOALS = { wallSeconds: 30, requests: PLACES, rssMb: 200 };
 
 /** Invented points on a 0.25° grid over the interior West: distinct on the cache's 0.1° grid. */
@@ -119,7 +113,7 @@ export async function runAlertCycleBench(): Promise<void> {
     const seedSeconds = (performance.now() - seedStartedAtMs) / 1000;
     progress(`seeded in ${seedSeconds.toFixed(1)} s`);
 
-    bot = await startChild('alertCycleBot.ts', [storeUrl, hello.forecastBaseUrl, hello.slackApiUrl, hello.discordApiUrl, String(nowMs), standInApplicationId], 30_000, { preferCompiled: true, nodeFlags: botNodeFlags(), environment: BOT_ENVIRONMENT });
+    bot = await startChild('alertCycleBot.ts', [storeUrl, hello.forecastBaseUrl, hello.slackApiUrl, hello.discordApiUrl, String(nowMs), standInApplicationId], 30_000, { preferCompiled: true, nodeFlags: botNodeFlagsForBench(), environment: BOT_ENVIRONMENT });
     const botHello = bot.hello as unknown as BotHello;
     const requestsBefore = (await stats()).forecastRequests;
     const cycle = await bot.ask<{ report: AlertCheckReport; seconds: number; memory: BotMemory; resident: Record<string, number>; retainedHeapMb: number }>({ cmd: 'cycle' }, 120_000);

@@ -35,7 +35,8 @@ import type { CommandRouter } from '../src/router/routerTypes.ts';
 import { openStore } from '../src/store/openStore.ts';
 import { loadRulesFile } from '../src/watch/rules/loadRules.ts';
 import { RouterDouble } from '../test/adapters/routerDouble.ts';
-import { memorySampler, startChild, type ChildLink } from './childLink.ts';
+import { startChild, type ChildLink } from './childLink.ts';
+import { memorySampler } from './childSide.ts';
 import type { LoadAnswer, LoadRequest } from './chatLoadProcess.ts';
 
 type RouterKind = 'real' | 'double';

@@ -17,6 +17,7 @@
 import { memorySampler, serveParent } from './childSide.ts';
 import { startSlackStandIn, type SlackStandIn } from '../test/adapters/slackStandIn.ts';
 import { Worker } from 'node:worker_threads';
+import { pool, waitUntil } from './loadPacing.ts';
 import type { Arrival, SlackLoadResult, SlackLoadSettings } from './slackLoadThread.ts';
 import { standInApplicationId, startDiscordStandIn, type DiscordStandIn } from '../test/adapters/discordStandIn.ts';
 import type { RecordedCall } from '../test/adapters/recordingServer.ts';
@@ -57,19 +58,6 @@ export interface LoadAnswer {
 type SendOne = (index: number, workerId: number, text: string, deadline: number) => Promise<LoadSample>;
 /** A sender and the unsubscribe of the stand-in listener it timed through. */
 type Sender = { send: SendOne; close: () => void };
-
-/** Runs `count` jobs, `concurrency` at a time (one job at a time per worker), stopping new ones at the deadline. */
-async function pool(count: number, concurrency: number, deadline: number, job: (index: number, workerId: number) => Promise<void>): Promise<void> {
-  let next = 0;
-  const worker = async (_: unknown, workerId: number) => {
-    while (next < count && Date.now() < deadline) await job(next++, workerId);
-  };
-  await Promise.all(Array.from({ length: concurrency }, worker));
-}
-
-function waitUntil<T>(promise: Promise<T>, deadline: number, what: string): Promise<T> {
-  return Promise.race([promise, new Promise<T>((_, reject) => setTimeout(() => reject(new Error(`no ${what} before the deadline`)), Math.max(0, deadline - Date.now())).unref())]);
-}
 
 function forgetBody(call: RecordedCall): void {
   call.raw = Buffer.alloc(0);

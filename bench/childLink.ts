@@ -10,6 +10,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
 import { runnableModule } from '../bin/compiledBuild.mjs';
+import { BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
 
 const REPO_ROOT = fileURLToPath(new URL('..', import.meta.url));
 
@@ -28,6 +29,12 @@ export interface ChildLink {
 function exited(child: ChildProcess): Promise<void> {
   if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
   return new Promise((resolve) => child.once('exit', () => resolve()));
+}
+
+/** The bot's node flags as `npm start` sets them; LAPSEWATCH_BENCH_NODE_FLAGS="..." tries others (benchmarks print them). */
+export function botNodeFlagsForBench(): readonly string[] {
+  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
+  return tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
 }
 
 export interface ChildOptions {
@@ -119,4 +126,3 @@ export async function startChild(script: string, args: string[], readyTimeoutMs:
   };
 }
 
-export { memorySampler, serveParent } from './childSide.ts';

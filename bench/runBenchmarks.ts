@@ -5,7 +5,8 @@
 import { spawn } from 'node:child_process';
 import { loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
+import { BOT_ENVIRONMENT } from '../src/app/botRuntime.ts';
+import { botNodeFlagsForBench } from './childLink.ts';
 
 /**
  * The chat benchmark holds the bot in its own process, so that process is started as `npm start`
@@ -13,9 +14,7 @@ import { BOT_ENVIRONMENT, BOT_NODE_FLAGS } from '../src/app/botRuntime.ts';
  * other flags; the benchmark prints the ones it ran with).
  */
 async function runChatInBotProcess(): Promise<void> {
-  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
-  const flags = tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
-  const child = spawn(process.execPath, [...flags, '--import', 'tsx', fileURLToPath(new URL('./chatLoad.ts', import.meta.url))], {
+  const child = spawn(process.execPath, [...botNodeFlagsForBench(), '--import', 'tsx', fileURLToPath(new URL('./chatLoad.ts', import.meta.url))], {
     env: { ...process.env, ...BOT_ENVIRONMENT },
     stdio: 'inherit',
   });

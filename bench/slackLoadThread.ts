@@ -7,19 +7,15 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { postSigned, slashCommandForm } from '../test/adapters/slackSigning.ts';
+import type { LoadRequest } from './chatLoadProcess.ts';
+import { pool, waitUntil } from './loadPacing.ts';
 
-export interface SlackLoadSettings {
+export type SlackLoadSettings = Required<Omit<LoadRequest, 'botUrl' | 'secret'>> & {
   botUrl: string;
   secret: string;
-  commandName: string;
-  texts: string[];
-  total: number;
-  concurrency: number;
-  deadlineMs: number;
-  warmUp: boolean;
   /** The stand-in's response URL for a key, minus the key. */
   responseUrlPrefix: string;
-}
+};
 
 /** Arrivals the stand-in's thread forwards. */
 export type Arrival = { kind: 'respond'; key: string; atMs: number; inChannel: boolean } | { kind: 'uploaded'; channelId: string; atMs: number };
@@ -32,10 +28,6 @@ export interface SlackLoadResult {
 
 const nowMs = (): number => performance.timeOrigin + performance.now();
 
-function waitUntil<T>(promise: Promise<T>, deadline: number, what: string): Promise<T> {
-  return Promise.race([promise, new Promise<T>((_, reject) => setTimeout(() => reject(new Error(`no ${what} before the deadline`)), Math.max(0, deadline - Date.now())).unref())]);
-}
-
 const answered = new Map<string, (answer: { atMs: number; inChannel: boolean }) => void>();
 const uploaded = new Map<string, (atMs: number) => void>();
 
@@ -43,35 +35,30 @@ const uploaded = new Map<string, (atMs: number) => void>();
 async function run(settings: SlackLoadSettings): Promise<SlackLoadResult> {
   const result: SlackLoadResult = { samples: [], failures: 0, firstFailure: null };
   const deadline = Date.now() + settings.deadlineMs;
-  let next = 0;
   // One channel per concurrent caller (20 incident channels asking again and again, as on a busy
   // fire): a caller waits for its answer before asking again, so an upload is matched by its channel.
-  async function caller(workerId: number): Promise<void> {
-    while (next < settings.total && Date.now() < deadline) {
-      const index = next++;
-      const text = settings.texts[index % settings.texts.length]!;
-      const key = settings.warmUp ? `warm-up-${index}` : String(index);
-      const channelId = settings.warmUp ? 'CBENCHWARMUP' : `CBENCH${workerId}`;
-      const responded = new Promise<{ atMs: number; inChannel: boolean }>((resolve) => answered.set(key, resolve));
-      const imaged = new Promise<number>((resolve) => uploaded.set(channelId, resolve));
-      try {
-        const t0 = nowMs();
-        const ack = await postSigned(settings.botUrl, slashCommandForm(settings.commandName, text, `${settings.responseUrlPrefix}${key}`, channelId), { secret: settings.secret });
-        const ackAt = nowMs();
-        if (ack.status !== 200) throw new Error(`ack ${ack.status}`);
-        const response = await waitUntil(responded, deadline, `response-URL post for "${text}"`);
-        // Answers for the whole channel are the ones with a picture; it follows as an upload.
-        const fullAt = response.inChannel ? Math.max(response.atMs, await waitUntil(imaged, deadline, `upload for "${text}"`)) : response.atMs;
-        result.samples.push({ index, ackMs: ackAt - t0, fullMs: fullAt - t0 });
-      } catch (error) {
-        result.failures += 1;
-        result.firstFailure ??= error instanceof Error ? error.message : String(error);
-      } finally {
-        answered.delete(key);
-      }
+  await pool(settings.total, settings.concurrency, deadline, async (index, workerId) => {
+    const text = settings.texts[index % settings.texts.length]!;
+    const key = settings.warmUp ? `warm-up-${index}` : String(index);
+    const channelId = settings.warmUp ? 'CBENCHWARMUP' : `CBENCH${workerId}`;
+    const responded = new Promise<{ atMs: number; inChannel: boolean }>((resolve) => answered.set(key, resolve));
+    const imaged = new Promise<number>((resolve) => uploaded.set(channelId, resolve));
+    try {
+      const t0 = nowMs();
+      const ack = await postSigned(settings.botUrl, slashCommandForm(settings.commandName, text, `${settings.responseUrlPrefix}${key}`, channelId), { secret: settings.secret });
+      const ackAt = nowMs();
+      if (ack.status !== 200) throw new Error(`ack ${ack.status}`);
+      const response = await waitUntil(responded, deadline, `response-URL post for "${text}"`);
+      // Answers for the whole channel are the ones with a picture; it follows as an upload.
+      const fullAt = response.inChannel ? Math.max(response.atMs, await waitUntil(imaged, deadline, `upload for "${text}"`)) : response.atMs;
+      result.samples.push({ index, ackMs: ackAt - t0, fullMs: fullAt - t0 });
+    } catch (error) {
+      result.failures += 1;
+      result.firstFailure ??= error instanceof Error ? error.message : String(error);
+    } finally {
+      answered.delete(key);
     }
-  }
-  await Promise.all(Array.from({ length: settings.concurrency }, (_, workerId) => caller(workerId)));
+  });
   return result;
 }
 
