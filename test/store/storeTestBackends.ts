@@ -66,36 +66,42 @@ export function describeEachBackend(title: string, body: (harness: BackendHarnes
   describePostgres(title, (baseUrl) => body(postgresHarness(baseUrl)));
 }
 
-function trackStores(): { track(store: Store): Store } {
-  const open: Store[] = [];
+/** `open` and `openFresh` for a backend: every store they open is closed after its test. */
+function storeOpeners(freshUrl: () => Promise<string>): Pick<BackendHarness, 'open' | 'openFresh'> {
+  const opened: Store[] = [];
   afterEach(async () => {
-    await Promise.all(open.splice(0).map((s) => s.close().catch(() => undefined)));
+    await Promise.all(opened.splice(0).map((s) => s.close().catch(() => undefined)));
   });
-  return { track: (store) => (open.push(store), store) };
+  const open: BackendHarness['open'] = async (url, options) => {
+    const store = await openStore({ url, ...options });
+    opened.push(store);
+    return store;
+  };
+  return {
+    open,
+    async openFresh() {
+      const url = await freshUrl();
+      return Object.assign(await open(url), { url });
+    },
+  };
 }
 
 export function sqliteHarness(): BackendHarness {
   let folder: string | undefined;
   let counter = 0;
-  const stores = trackStores();
   afterAll(() => {
     if (folder !== undefined) fs.rmSync(folder, { recursive: true, force: true });
   });
   const filePathOf = (url: string): string => url.slice('sqlite:'.length);
-  const harness: BackendHarness = {
+  async function freshUrl(): Promise<string> {
+    folder ??= fs.mkdtempSync(path.join(os.tmpdir(), 'lapsewatch-store-'));
+    counter += 1;
+    return `sqlite:${path.join(folder, `store-${counter}.db`)}`;
+  }
+  return {
     backend: 'sqlite',
-    async freshUrl() {
-      folder ??= fs.mkdtempSync(path.join(os.tmpdir(), 'lapsewatch-store-'));
-      counter += 1;
-      return `sqlite:${path.join(folder, `store-${counter}.db`)}`;
-    },
-    async open(url, options) {
-      return stores.track(await openStore({ url, ...options }));
-    },
-    async openFresh() {
-      const url = await harness.freshUrl();
-      return Object.assign(await harness.open(url), { url });
-    },
+    freshUrl,
+    ...storeOpeners(freshUrl),
     async rawExecute(url, sqlText) {
       const db = new Database(filePathOf(url), { fileMustExist: true });
       try {
@@ -113,7 +119,6 @@ export function sqliteHarness(): BackendHarness {
       }
     },
   };
-  return harness;
 }
 
 /** URL of `baseUrl` with its search_path set to `schema`. */
@@ -124,7 +129,6 @@ export function withSearchPath(baseUrl: string, schema: string): string {
 
 export function postgresHarness(baseUrl: string): BackendHarness {
   const schemas: string[] = [];
-  const stores = trackStores();
   afterAll(async () => {
     if (schemas.length === 0) return;
     const client = new pg.Client({ connectionString: baseUrl });
@@ -144,21 +148,16 @@ export function postgresHarness(baseUrl: string): BackendHarness {
       await client.end();
     }
   }
-  const harness: BackendHarness = {
+  async function freshUrl(): Promise<string> {
+    const schema = `lw_test_${process.pid}_${randomBytes(5).toString('hex')}`;
+    await withClient(baseUrl, (client) => client.query(`CREATE SCHEMA ${schema}`));
+    schemas.push(schema);
+    return withSearchPath(baseUrl, schema);
+  }
+  return {
     backend: 'postgres',
-    async freshUrl() {
-      const schema = `lw_test_${process.pid}_${randomBytes(5).toString('hex')}`;
-      await withClient(baseUrl, (client) => client.query(`CREATE SCHEMA ${schema}`));
-      schemas.push(schema);
-      return withSearchPath(baseUrl, schema);
-    },
-    async open(url, options) {
-      return stores.track(await openStore({ url, ...options }));
-    },
-    async openFresh() {
-      const url = await harness.freshUrl();
-      return Object.assign(await harness.open(url), { url });
-    },
+    freshUrl,
+    ...storeOpeners(freshUrl),
     async rawExecute(url, sqlText) {
       await withClient(url, (client) => client.query(sqlText));
     },
@@ -166,5 +165,4 @@ export function postgresHarness(baseUrl: string): BackendHarness {
       return withClient(url, async (client) => (await client.query(sqlText)).rows as T[]);
     },
   };
-  return harness;
 }
