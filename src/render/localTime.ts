@@ -1,4 +1,5 @@
 import { DateTime } from 'luxon';
+import { rememberByText } from './rememberByText.ts';
 
 /**
  * Times in messages are the place's local wall-clock time, 24-hour clock (incident operations
@@ -44,22 +45,22 @@ function zoneAbbreviation(local: DateTime): string {
 }
 
 /** "Thu 14:00 MDT". */
-export function formatLocalHour(isoInstant: string, timeZone: string): string {
+export const formatLocalHour = rememberByText((isoInstant: string, timeZone: string): string => {
   const local = inZone(isoInstant, timeZone);
   return local.isValid ? `${local.toFormat('ccc HH:mm')} ${zoneAbbreviation(local)}` : isoInstant;
-}
+});
 
 /** "Thu 14 Aug 14:00 MDT", for alerts where the date matters. */
-export function formatLocalDateHour(isoInstant: string, timeZone: string): string {
+export const formatLocalDateHour = rememberByText((isoInstant: string, timeZone: string): string => {
   const local = inZone(isoInstant, timeZone);
   return local.isValid ? `${local.toFormat('ccc d LLL HH:mm')} ${zoneAbbreviation(local)}` : isoInstant;
-}
+});
 
 /** "14:00", for compact places (chart axes, ranges). */
-export function formatLocalClock(isoInstant: string, timeZone: string): string {
+export const formatLocalClock = rememberByText((isoInstant: string, timeZone: string): string => {
   const local = inZone(isoInstant, timeZone);
   return local.isValid ? local.toFormat('HH:mm') : isoInstant;
-}
+});
 
 /** "Thu 14 Aug" for a local date "2026-08-14". */
 export function formatLocalDate(localDate: string): string {
@@ -68,11 +69,11 @@ export function formatLocalDate(localDate: string): string {
 }
 
 /** Local hour of day 0..23 and the local date, for chart axes. */
-export function localParts(isoInstant: string, timeZone: string): { hour: number; minute: number; weekday: string; dayLabel: string } | null {
+export const localParts = rememberByText((isoInstant: string, timeZone: string): Readonly<{ hour: number; minute: number; weekday: string; dayLabel: string }> | null => {
   const local = inZone(isoInstant, timeZone);
   if (!local.isValid) return null;
-  return { hour: local.hour, minute: local.minute, weekday: local.toFormat('ccc'), dayLabel: local.toFormat('ccc d LLL') };
-}
+  return Object.freeze({ hour: local.hour, minute: local.minute, weekday: local.toFormat('ccc'), dayLabel: local.toFormat('ccc d LLL') });
+});
 
 /** Model run time as forecasters write it: "12Z 14 Aug 2026". */
 export function formatRunTime(isoInstant: string): string {
