@@ -42,6 +42,9 @@ export function createChannelRepository({ db }: StoreContext): ChannelRepository
       const t = parseInput(channelTargetSchema, target, 'channel target');
       const d = parseInput(defaultsSchema, defaults, 'channel defaults');
       parseInput(epochMsSchema, nowMs, 'nowMs');
+      // Nearly every command comes from a channel already saved and active: one read, no write.
+      const known = await findChannel(t);
+      if (known !== null && known.active) return known;
       // Insert-or-nothing, then read: safe when two replicas see a new channel at once.
       await db
         .insertInto('channels')

@@ -13,6 +13,7 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { Kysely, SqliteDialect } from 'kysely';
 import type { StoreDatabase } from './databaseSchema.ts';
+import { withPreparedStatementCache } from './preparedStatementCache.ts';
 import { StoreError, causeMessage } from './storeError.ts';
 
 const SQLITE_HEADER = 'SQLite format 3\u0000';
@@ -44,7 +45,7 @@ export function openSqliteDatabase({ filePath, expectExisting }: OpenSqliteOptio
       cause: error,
     });
   }
-  return new Kysely<StoreDatabase>({ dialect: new SqliteDialect({ database }) });
+  return new Kysely<StoreDatabase>({ dialect: new SqliteDialect({ database: withPreparedStatementCache(database) }) });
 }
 
 /** Returns whether the file existed; creates the folder for a new one. */
