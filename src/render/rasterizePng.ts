@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import { Resvg, renderAsync, type ResvgRenderOptions } from '@resvg/resvg-js';
+import { encodePng, encodePngSync } from './encodePng.ts';
 import { PngCache } from './pngCache.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
 
@@ -29,7 +30,8 @@ function renderSettings(): RenderSettings {
     present.length > 0
       ? { loadSystemFonts: false, fontFiles: present, defaultFontFamily: CHART_FONT_FAMILY, sansSerifFamily: CHART_FONT_FAMILY }
       : { loadSystemFonts: true, defaultFontFamily: CHART_FONT_FAMILY };
-  // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it.
+  // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it. The opaque
+  // background also makes resvg's premultiplied pixels equal to the straight ones a PNG holds.
   const options: ResvgRenderOptions = { font, background: '#ffffff', shapeRendering: 2, textRendering: 1 };
   settings = { options, key: JSON.stringify(options) };
   return settings;
@@ -55,7 +57,8 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
   try {
     rasterizedCount += 1;
     const rendered = new Resvg(svg, options).render();
-    const picture = { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height };
+    const image = { pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height };
+    const picture = { png: encodePngSync(image), widthPx: image.widthPx, heightPx: image.heightPx };
     cache.set(key, picture);
     return { ok: true, ...picture };
   } catch (error) {
@@ -80,8 +83,9 @@ export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Pro
   if (pending) return pending;
   rasterizedCount += 1;
   const rendering = renderAsync(svg, options)
-    .then((rendered) => {
-      cache.set(key, { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height });
+    .then(async (rendered) => {
+      const image = { pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height };
+      cache.set(key, { png: await encodePng(image), widthPx: image.widthPx, heightPx: image.heightPx });
     })
     .catch(() => {})
     .finally(() => inFlight.delete(key));
