@@ -1,7 +1,13 @@
-/** The Web API base option, when one is configured: the client joins method names onto it, so it ends in "/". */
-export function slackApiUrlOption(apiUrl: string | undefined): { slackApiUrl?: string } {
-  if (!apiUrl) return {};
-  return { slackApiUrl: apiUrl.endsWith('/') ? apiUrl : `${apiUrl}/` };
+import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
+
+/**
+ * The options every Web API client of ours shares: the API base, when one is configured (the
+ * client joins method names onto it, so it ends in "/"), and the node:http transport
+ * (adapters/http/nodeHttpFetch.ts says why).
+ */
+export function slackClientBaseOptions(apiUrl: string | undefined): { slackApiUrl?: string; fetch: typeof nodeHttpFetch } {
+  if (!apiUrl) return { fetch: nodeHttpFetch };
+  return { slackApiUrl: apiUrl.endsWith('/') ? apiUrl : `${apiUrl}/`, fetch: nodeHttpFetch };
 }
 
 /**
@@ -10,5 +16,5 @@ export function slackApiUrlOption(apiUrl: string | undefined): { slackApiUrl?: s
  * the process from exiting. (Scheduled posts use the outbox's own retry policy instead.)
  */
 export function answerClientOptions(apiUrl: string | undefined, timeoutMs = 10_000) {
-  return { ...slackApiUrlOption(apiUrl), retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 }, timeout: timeoutMs };
+  return { ...slackClientBaseOptions(apiUrl), retryConfig: { retries: 2, minTimeout: 500, maxTimeout: 2_000 }, timeout: timeoutMs };
 }

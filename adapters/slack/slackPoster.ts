@@ -3,7 +3,7 @@ import type { ChannelPoster, ChannelTarget, PostOutcome } from '../../src/delive
 import type { Message } from '../../src/render/message.ts';
 import { footerOf } from '../../src/render/safetyFooter.ts';
 import { fitWithTail } from '../../src/render/textFit.ts';
-import { slackApiUrlOption } from './slackClientOptions.ts';
+import { slackClientBaseOptions } from './slackClientOptions.ts';
 import { defaultSlackEncoder, type SlackEncoder } from './slackEncoder.ts';
 import { isMessageTooLong, slackPostOutcome } from './slackPostOutcome.ts';
 import { uploadSlackImages } from './uploadSlackImages.ts';
@@ -37,7 +37,7 @@ function shortenedPayload(message: Message): { text: string } {
  */
 export function createSlackPoster(options: SlackPosterOptions): ChannelPoster {
   const client = new WebClient(options.botToken, {
-    ...slackApiUrlOption(options.apiUrl),
+    ...slackClientBaseOptions(options.apiUrl),
     retryConfig: { retries: 0 },
     rejectRateLimitedCalls: true,
     timeout: options.timeoutMs ?? 10_000,
