@@ -110,7 +110,7 @@ let generatorThread: Promise<Worker> | null = null;
 function slackGenerator(): Promise<Worker> {
   generatorThread ??= new Promise((resolve, reject) => {
     // Through the same bootstrap as the receiver thread: a worker does not inherit tsx from --import.
-    const worker = new Worker(new URL('../adapters/receiverThread/workerBootstrap.mjs', import.meta.url), {
+    const worker = new Worker(new URL('../src/threads/workerBootstrap.mjs', import.meta.url), {
       workerData: { entry: new URL('./slackLoadThread.ts', import.meta.url).href },
     });
     worker.once('message', () => resolve(worker));

@@ -1,5 +1,6 @@
 import { getPriority, setPriority } from 'node:os';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
+import { startModuleWorker } from '../../src/threads/moduleWorker.ts';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import type { DiscordReceiverOptions } from '../discord/createDiscordBot.ts';
@@ -55,13 +56,8 @@ function lowerThisThread(nice: number, log: ReceiverThreadOptions['log']): numbe
   }
 }
 
-/** The worker module beside this one: .ts through tsx when running the sources, .js when compiled. */
 function newReceiverWorker(settings: ReceiverThreadSettings): Worker {
-  const fromSources = import.meta.url.endsWith('.ts');
-  const entry = new URL(fromSources ? './receiverWorker.ts' : './receiverWorker.js', import.meta.url);
-  return fromSources
-    ? new Worker(new URL('./workerBootstrap.mjs', import.meta.url), { workerData: { entry: entry.href, settings } })
-    : new Worker(entry, { workerData: { settings } });
+  return startModuleWorker(import.meta.url, 'receiverWorker', { settings });
 }
 
 /**
