@@ -1,14 +1,11 @@
 /**
- * RGBA pixels to PNG (ISO/IEC 15948): signature, IHDR, one IDAT, IEND. Written here rather than
- * taken from the rasteriser because its encoder runs on the calling thread, and a skew-T's took
- * 10-25 ms of the event loop that answers every channel; zlib's asynchronous deflate runs on
- * libuv's thread pool instead. Every scanline uses filter type 0 (none), which keeps the work off
- * the event loop to one copy; on our flat-coloured charts it still comes out smaller than before.
+ * RGBA pixels to PNG (ISO/IEC 15948): signature, IHDR, one IDAT, IEND. Every scanline uses
+ * filter type 0 (none) and zlib's default level; on our flat-coloured charts that comes out about
+ * a third smaller than resvg's own encoder (a skew-T 130 kB against 190 kB) for the same CPU, and
+ * every answer with a picture sends it over the network once more.
  */
-import { crc32, deflate, deflateSync } from 'node:zlib';
-import { promisify } from 'node:util';
+import { crc32, deflateSync } from 'node:zlib';
 
-const deflateAsync = promisify(deflate);
 const SIGNATURE = Buffer.from([137, 80, 78, 71, 13, 10, 26, 10]);
 const BYTES_PER_PIXEL = 4;
 const COLOUR_TYPE_RGBA = 6;
@@ -56,12 +53,6 @@ function assemble(image: RgbaImage, compressed: Uint8Array): Uint8Array {
   return new Uint8Array(png.buffer, png.byteOffset, png.byteLength);
 }
 
-/** Compresses on libuv's thread pool; only the row copy and the framing run on the calling thread. */
-export async function encodePng(image: RgbaImage): Promise<Uint8Array> {
-  return assemble(image, await deflateAsync(filteredScanlines(image)));
-}
-
-/** The same bytes as `encodePng`, made on the calling thread. */
-export function encodePngSync(image: RgbaImage): Uint8Array {
+export function encodePng(image: RgbaImage): Uint8Array {
   return assemble(image, deflateSync(filteredScanlines(image)));
 }

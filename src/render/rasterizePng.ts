@@ -1,7 +1,8 @@
 import { existsSync } from 'node:fs';
-import { Resvg, renderAsync, type ResvgRenderOptions } from '@resvg/resvg-js';
-import { encodePng, encodePngSync } from './encodePng.ts';
+import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import { encodePng } from './encodePng.ts';
 import { PngCache } from './pngCache.ts';
+import { rasterizeOnPictureThread } from './rasterThread.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
 
 /** Our charts' font, loaded by file path so that the picture does not depend on the host's fonts. */
@@ -58,7 +59,7 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
     rasterizedCount += 1;
     const rendered = new Resvg(svg, options).render();
     const image = { pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height };
-    const picture = { png: encodePngSync(image), widthPx: image.widthPx, heightPx: image.heightPx };
+    const picture = { png: encodePng(image), widthPx: image.widthPx, heightPx: image.heightPx };
     cache.set(key, picture);
     return { ok: true, ...picture };
   } catch (error) {
@@ -69,11 +70,11 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
 const inFlight = new Map<string, Promise<void>>();
 
 /**
- * Rasterises on libuv's thread pool and leaves the picture in the cache, so that the synchronous
- * `rasterizeSvgToPng` a message builder calls next finds it there. The slow part of an answer then
- * runs off the event loop, and acknowledgements of other commands are not kept waiting behind it.
- * Requests for the same picture share one rendering. Never rejects: a failure is left for the
- * synchronous call to report.
+ * Rasterises on the picture thread (rasterThread.ts) and leaves the picture in the cache, so that
+ * the synchronous `rasterizeSvgToPng` a message builder calls next finds it there. The slow part
+ * of an answer then runs off the event loop, and other channels' answers are not kept waiting
+ * behind it. Requests for the same picture share one rendering. Never rejects: a failure is left
+ * for the synchronous call to report (it tries once more on this thread).
  */
 export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Promise<void> {
   const { options, key: settingsKey } = renderSettings();
@@ -82,12 +83,10 @@ export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Pro
   const pending = inFlight.get(key);
   if (pending) return pending;
   rasterizedCount += 1;
-  const rendering = renderAsync(svg, options)
-    .then(async (rendered) => {
-      const image = { pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height };
-      cache.set(key, { png: await encodePng(image), widthPx: image.widthPx, heightPx: image.heightPx });
+  const rendering = rasterizeOnPictureThread(svg, options)
+    .then((outcome) => {
+      if (outcome.ok) cache.set(key, { png: outcome.png, widthPx: outcome.widthPx, heightPx: outcome.heightPx });
     })
-    .catch(() => {})
     .finally(() => inFlight.delete(key));
   inFlight.set(key, rendering);
   return rendering;

@@ -1,0 +1,9 @@
+/** What the answering thread and the picture thread (rasterWorker.ts) say to each other. */
+export interface RasterRequest {
+  id: number;
+  svg: string;
+  /** resvg's render options, as plain data. */
+  options: unknown;
+}
+
+export type RasterReply = { id: number; ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { id: number; ok: false; reason: string };
