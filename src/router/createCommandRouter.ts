@@ -7,9 +7,27 @@ import { forgetPlace, listPlaces, savePlace } from './handlers/placeCommands.ts'
 import { listRules, setThreshold } from './handlers/ruleCommands.ts';
 import { setMorningTime, setUnits } from './handlers/settingsCommands.ts';
 import { listWatching, startWatching, stopWatching } from './handlers/watchCommands.ts';
+import { channelForCommand } from './channelForCommand.ts';
 import { errorMessage } from './replies.ts';
 import type { HandlerContext, RouterDependencies } from './routerContext.ts';
 import type { ActionRequest, CommandRequest, CommandRouter } from './routerTypes.ts';
+
+/** Which verbs may change what is stored for the channel; the rest only read (channelForCommand.ts). */
+const VERB_WRITES: Record<Command['verb'], boolean> = {
+  lookup: false,
+  detail: false,
+  places: false,
+  watching: false,
+  rules: false,
+  help: false,
+  save: true,
+  forget: true,
+  watch: true,
+  unwatch: true,
+  threshold: true,
+  morning: true,
+  units: true,
+};
 
 /**
  * The one command router every platform feeds. It parses with zod, runs the command and always
@@ -17,12 +35,9 @@ import type { ActionRequest, CommandRequest, CommandRouter } from './routerTypes
  * side is reported as such, with nothing changed and nothing thrown to the adapter.
  */
 export function createCommandRouter(dependencies: RouterDependencies, onFault: (error: unknown, what: string) => void = () => {}): CommandRouter {
-  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>): Promise<HandlerContext> {
-    const channel = await dependencies.store.channels.ensureChannel(
-      { platform: request.platform, teamId: request.teamId, channelId: request.channelId },
-      dependencies.channelDefaults,
-      dependencies.nowMs(),
-    );
+  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>, writes: boolean): Promise<HandlerContext> {
+    const target = { platform: request.platform, teamId: request.teamId, channelId: request.channelId };
+    const channel = await channelForCommand(dependencies.store, target, dependencies.channelDefaults, dependencies.nowMs(), writes);
     return { ...dependencies, channel, request };
   }
 
@@ -76,11 +91,12 @@ export function createCommandRouter(dependencies: RouterDependencies, onFault: (
     handleCommand(request: CommandRequest): Promise<Message> {
       const parsed = parseCommand(typeof request.text === 'string' ? request.text : '');
       if (!parsed.ok) return Promise.resolve(errorMessage(parsed.error, dependencies.localFooterLine));
-      return guarded(`command ${parsed.command.verb}`, async () => run(await contextFor(request), parsed.command));
+      const { command } = parsed;
+      return guarded(`command ${command.verb}`, async () => run(await contextFor(request, VERB_WRITES[command.verb]), command));
     },
     handleAction(request: ActionRequest): Promise<Message> {
       return guarded(`action ${request.actionId}`, async () => {
-        const context = await contextFor(request);
+        const context = await contextFor(request, request.actionId !== 'show-detail');
         if (request.actionId === 'mute-rule') return muteRule(context, request.value);
         if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
         return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);

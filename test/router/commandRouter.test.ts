@@ -114,6 +114,23 @@ describe('the command router', () => {
     expect(text(await router.handleCommand(request('rules')))).toMatch(/250 .*this channel/);
   });
 
+  it('answers questions from a channel never seen before without saving it; the first change saves it, and a removed channel asking again is active again', async () => {
+    const fresh = { channelId: 'C-new-to-the-bot' };
+    const target = { platform: 'terminal' as const, teamId: '', channelId: fresh.channelId };
+    for (const question of ['Alder Sink', 'detail Alder Sink 15', 'places', 'watching', 'rules', 'help']) {
+      expect((await router.handleCommand(request(question, fresh))).kind).not.toBe('error');
+    }
+    expect(await store.channels.findChannel(target)).toBeNull();
+    expect(text(await router.handleCommand(request('Alder Sink', fresh)))).toMatch(/ m\b/); // the defaults: metric
+    await router.handleCommand(request('units us', fresh));
+    const saved = await store.channels.findChannel(target);
+    expect([saved?.unitSystem, saved?.active]).toEqual(['us', true]);
+    expect(text(await router.handleCommand(request('Alder Sink', fresh)))).toMatch(/ ft/);
+    await store.channels.markChannelInactive(target, NOW_MS);
+    await router.handleCommand(request('Alder Sink', fresh));
+    expect((await store.channels.findChannel(target))?.active).toBe(true);
+  });
+
   it('sets units and the morning time', async () => {
     await router.handleCommand(request('units us'));
     await router.handleCommand(request('morning 05:45'));

@@ -1,0 +1,33 @@
+import type { Channel, ChannelDefaults, ChannelTarget, Store } from '../store/storeTypes.ts';
+
+/**
+ * The channel a command acts for. A command that changes something saves the channel first
+ * (created on first contact, made active again if the bot was removed and invited back). A
+ * question writes nothing: a channel never seen before is answered with the defaults and stays
+ * unsaved, so the first burst of lookups from new channels is not a burst of synchronous disk
+ * writes on the thread that answers everyone.
+ */
+export async function channelForCommand(store: Store, target: ChannelTarget, defaults: ChannelDefaults, nowMs: number, writes: boolean): Promise<Channel> {
+  if (!writes) {
+    const known = await store.channels.findChannel(target);
+    if (known === null) return unsavedChannel(target, defaults, nowMs);
+    if (known.active) return known;
+  }
+  return store.channels.ensureChannel(target, defaults, nowMs);
+}
+
+/**
+ * A channel with no row yet. Its id matches no stored row, so reads by it (saved places,
+ * watches, overrides) find nothing, which is the truth for a channel never seen before.
+ */
+function unsavedChannel(target: ChannelTarget, defaults: ChannelDefaults, nowMs: number): Channel {
+  return {
+    id: `unsaved:${target.platform}:${target.teamId}:${target.channelId}`,
+    ...target,
+    unitSystem: defaults.unitSystem,
+    summaryLocalTime: defaults.summaryLocalTime,
+    active: true,
+    createdAtMs: nowMs,
+    updatedAtMs: nowMs,
+  };
+}
