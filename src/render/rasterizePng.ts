@@ -1,13 +1,9 @@
-import { existsSync } from 'node:fs';
 import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import { chartFontFiles, subsetCovers } from './chartFonts.ts';
 import { encodePng } from './encodePng.ts';
 import { PngCache } from './pngCache.ts';
 import { rasterizeOnPictureThread } from './rasterThread.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
-
-/** Our charts' font, loaded by file path so that the picture does not depend on the host's fonts. */
-const FONT_DIR = '/usr/share/fonts/truetype/dejavu';
-const FONT_FILES = ['DejaVuSans.ttf', 'DejaVuSans-Bold.ttf'].map((file) => `${FONT_DIR}/${file}`);
 
 export type PngResult = { ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { ok: false; reason: string };
 
@@ -17,16 +13,20 @@ interface RenderSettings {
   key: string;
 }
 
-let settings: RenderSettings | undefined;
+/** Decided once per process for each choice of fonts: the subsets, or the full files. */
+const settingsByCoverage = new Map<boolean, RenderSettings>();
 
 /**
- * Decided once per process: DejaVu Sans when its files are there, system-font discovery off (it
- * scans every font on the host, per call); otherwise whatever the system offers (text may look
- * different). The native binding takes fonts only by path, so the files are named, not held.
+ * The settings for one SVG: our DejaVu Sans subsets when they hold every character in it,
+ * otherwise the full DejaVu files (chartFonts.ts says why); system-font discovery off (it scans
+ * every font on the host, per call). With no DejaVu file at all, whatever the system offers (text
+ * may look different). The native binding takes fonts only by path, so the files are named, not held.
  */
-function renderSettings(): RenderSettings {
-  if (settings) return settings;
-  const present = FONT_FILES.filter((file) => existsSync(file));
+function renderSettings(svg: string): RenderSettings {
+  const covered = subsetCovers(svg);
+  const known = settingsByCoverage.get(covered);
+  if (known) return known;
+  const present = chartFontFiles(covered);
   const font: ResvgRenderOptions['font'] =
     present.length > 0
       ? { loadSystemFonts: false, fontFiles: present, defaultFontFamily: CHART_FONT_FAMILY, sansSerifFamily: CHART_FONT_FAMILY }
@@ -34,7 +34,8 @@ function renderSettings(): RenderSettings {
   // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it. The opaque
   // background also makes resvg's premultiplied pixels equal to the straight ones a PNG holds.
   const options: ResvgRenderOptions = { font, background: '#ffffff', shapeRendering: 2, textRendering: 1 };
-  settings = { options, key: JSON.stringify(options) };
+  const settings = { options, key: JSON.stringify(options) };
+  settingsByCoverage.set(covered, settings);
   return settings;
 }
 
@@ -51,7 +52,7 @@ let rasterizedCount = 0;
  * is a value: the message goes out without its picture (and nothing is cached).
  */
 export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): PngResult {
-  const { options, key: settingsKey } = renderSettings();
+  const { options, key: settingsKey } = renderSettings(svg);
   const key = PngCache.keyOf(svg, settingsKey);
   const cached = cache.get(key);
   if (cached) return { ok: true, ...cached };
@@ -77,7 +78,7 @@ const inFlight = new Map<string, Promise<void>>();
  * for the synchronous call to report (it tries once more on this thread).
  */
 export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Promise<void> {
-  const { options, key: settingsKey } = renderSettings();
+  const { options, key: settingsKey } = renderSettings(svg);
   const key = PngCache.keyOf(svg, settingsKey);
   if (cache.get(key)) return Promise.resolve();
   const pending = inFlight.get(key);
