@@ -1,11 +1,11 @@
 /**
  * The picture thread: rasterises our SVGs and encodes the PNGs, so that neither runs on the thread
- * that answers every channel. Copying a rendered picture's pixels out of resvg and encoding them
- * took 10-25 ms of that thread per picture. One request at a time, in arrival order.
+ * that answers every channel (a skew-T took 60-100 ms there). One request at a time, in arrival
+ * order. resvg encodes the PNG itself: copying its pixels out to encode them here left megabytes
+ * of garbage per picture, which this small heap collected only every few dozen pictures.
  */
 import { parentPort } from 'node:worker_threads';
 import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
-import { encodePng } from './encodePng.ts';
 import type { RasterReply, RasterRequest } from './rasterMessages.ts';
 
 /** The PNG in a buffer of its own, so handing it over (transferring) cannot take a shared pool with it. */
@@ -17,7 +17,7 @@ parentPort!.on('message', (request: RasterRequest) => {
   let reply: RasterReply;
   try {
     const rendered = new Resvg(request.svg, request.options as ResvgRenderOptions).render();
-    const png = ownBuffer(encodePng({ pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height }));
+    const png = ownBuffer(new Uint8Array(rendered.asPng()));
     reply = { id: request.id, ok: true, png, widthPx: rendered.width, heightPx: rendered.height };
     parentPort!.postMessage(reply, [png.buffer as ArrayBuffer]);
   } catch (error) {

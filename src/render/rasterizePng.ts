@@ -1,6 +1,5 @@
 import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
 import { chartFontFiles, subsetCovers } from './chartFonts.ts';
-import { encodePng } from './encodePng.ts';
 import { PngCache } from './pngCache.ts';
 import { rasterizeOnPictureThread } from './rasterThread.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
@@ -31,8 +30,7 @@ function renderSettings(svg: string): RenderSettings {
     present.length > 0
       ? { loadSystemFonts: false, fontFiles: present, defaultFontFamily: CHART_FONT_FAMILY, sansSerifFamily: CHART_FONT_FAMILY }
       : { loadSystemFonts: true, defaultFontFamily: CHART_FONT_FAMILY };
-  // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it. The opaque
-  // background also makes resvg's premultiplied pixels equal to the straight ones a PNG holds.
+  // Drawn at the SVG's own size (1 px per unit): the pictures are laid out for it.
   const options: ResvgRenderOptions = { font, background: '#ffffff', shapeRendering: 2, textRendering: 1 };
   const settings = { options, key: JSON.stringify(options) };
   settingsByCoverage.set(covered, settings);
@@ -59,8 +57,7 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
   try {
     rasterizedCount += 1;
     const rendered = new Resvg(svg, options).render();
-    const image = { pixels: rendered.pixels, widthPx: rendered.width, heightPx: rendered.height };
-    const picture = { png: encodePng(image), widthPx: image.widthPx, heightPx: image.heightPx };
+    const picture = { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height };
     cache.set(key, picture);
     return { ok: true, ...picture };
   } catch (error) {
