@@ -54,6 +54,11 @@ export class PngCache {
     return { ...entry, png: entry.png.slice() };
   }
 
+  /** Whether a picture is held under `key`, without copying it out (not counted as a hit or miss). */
+  has(key: string): boolean {
+    return this.entries.has(key);
+  }
+
   /** Keeps a copy of the picture; one larger than the whole byte bound is not kept. */
   set(key: string, picture: CachedPng): void {
     this.remove(key);

@@ -44,14 +44,29 @@ function renderSettings(svg: string): RenderSettings {
 const sharedCache = new PngCache({ maxEntries: 64, maxBytes: 24 * 1024 * 1024 });
 let rasterizedCount = 0;
 
+/** Cache keys of recent SVGs. A picture's SVG is drawn once per forecast run and asked for by every channel; hashing its 10-40 kB again for each was a millisecond of every answer. */
+const keysBySvg = new Map<string, { options: ResvgRenderOptions; key: string }>();
+const MAX_REMEMBERED_KEYS = 32;
+
+/** The render options for `svg` and its picture's cache key. */
+function pictureKey(svg: string): { options: ResvgRenderOptions; key: string } {
+  let known = keysBySvg.get(svg);
+  if (!known) {
+    const settings = renderSettings(svg);
+    known = { options: settings.options, key: PngCache.keyOf(svg, settings.key) };
+    if (keysBySvg.size >= MAX_REMEMBERED_KEYS) keysBySvg.clear();
+    keysBySvg.set(svg, known);
+  }
+  return known;
+}
+
 /**
  * Rasterises one of our SVGs, or hands back the same picture made earlier from the same SVG text.
  * Rasterising is the slow part of an answer (tens to hundreds of ms, on the event loop); a failure
  * is a value: the message goes out without its picture (and nothing is cached).
  */
 export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): PngResult {
-  const { options, key: settingsKey } = renderSettings(svg);
-  const key = PngCache.keyOf(svg, settingsKey);
+  const { options, key } = pictureKey(svg);
   const cached = cache.get(key);
   if (cached) return { ok: true, ...cached };
   try {
@@ -75,9 +90,8 @@ const inFlight = new Map<string, Promise<void>>();
  * for the synchronous call to report (it tries once more on this thread).
  */
 export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Promise<void> {
-  const { options, key: settingsKey } = renderSettings(svg);
-  const key = PngCache.keyOf(svg, settingsKey);
-  if (cache.get(key)) return Promise.resolve();
+  const { options, key } = pictureKey(svg);
+  if (cache.has(key)) return Promise.resolve();
   const pending = inFlight.get(key);
   if (pending) return pending;
   rasterizedCount += 1;
