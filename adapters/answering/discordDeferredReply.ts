@@ -1,6 +1,7 @@
 import type { REST } from '@discordjs/rest';
 import { Routes } from 'discord-api-types/v10';
 import type { DiscordEncoding } from '../../src/render/encodeDiscord.ts';
+import { bufferView } from '../http/bufferView.ts';
 
 /**
  * Turns a deferred interaction reply into the answer: PATCH of the original response through the
@@ -8,7 +9,7 @@ import type { DiscordEncoding } from '../../src/render/encodeDiscord.ts';
  * `editReply`. The token is the credential, so no bot token is sent (`auth: false`).
  */
 export async function editDeferredReply(rest: REST, applicationId: string, interactionToken: string, encoded: DiscordEncoding): Promise<void> {
-  const files = encoded.files.map((file) => ({ name: file.fileName, data: Buffer.from(file.png), contentType: 'image/png' }));
+  const files = encoded.files.map((file) => ({ name: file.fileName, data: bufferView(file.png), contentType: 'image/png' }));
   await rest.patch(Routes.webhookMessage(applicationId, interactionToken, '@original'), {
     auth: false,
     body: {

@@ -10,6 +10,7 @@ import { defaultDiscordEncoder, type DiscordEncoder } from './discordEncoder.ts'
 import { discordPostOutcome, isInvalidFormBody } from './discordPostOutcome.ts';
 import { fetchRequest } from './fetchRequest.ts';
 import { nonceFromKey } from './nonceFromKey.ts';
+import { bufferView } from '../http/bufferView.ts';
 
 export interface DiscordPosterOptions {
   token: string;
@@ -66,7 +67,7 @@ export function createDiscordPoster(options: DiscordPosterOptions): ChannelPoste
   const encode = options.encode ?? defaultDiscordEncoder;
 
   async function send(channelId: string, body: Body, encoded?: DiscordEncoding): Promise<string | null> {
-    const files = encoded?.files.map((file) => ({ name: file.fileName, data: Buffer.from(file.png), contentType: 'image/png' })) ?? [];
+    const files = encoded?.files.map((file) => ({ name: file.fileName, data: bufferView(file.png), contentType: 'image/png' })) ?? [];
     const sent = (await rest.post(Routes.channelMessages(channelId), { body, ...(files.length > 0 ? { files } : {}) })) as APIMessage;
     return sent?.id ?? null;
   }

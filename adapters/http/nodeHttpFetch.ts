@@ -15,7 +15,8 @@ import { request as httpRequest, type IncomingMessage } from 'node:http';
 import { request as httpsRequest } from 'node:https';
 
 type FetchInput = string | URL;
-type Body = { bytes: Buffer; contentType: string | null };
+/** A body as the pieces it is sent in (a multipart form is not copied into one buffer first). */
+type Body = { pieces: Buffer[]; contentType: string | null };
 
 // Statuses whose response must not have a body (Fetch standard, "null body status").
 const NULL_BODY_STATUSES = new Set([101, 103, 204, 205, 304]);
@@ -50,17 +51,17 @@ async function multipart(form: FormData): Promise<Body> {
     }
   }
   parts.push(Buffer.from(`--${boundary}--\r\n`));
-  return { bytes: Buffer.concat(parts), contentType: `multipart/form-data; boundary=${boundary}` };
+  return { pieces: parts, contentType: `multipart/form-data; boundary=${boundary}` };
 }
 
 async function encodeBody(body: unknown): Promise<Body | null> {
   if (body === undefined || body === null) return null;
-  if (typeof body === 'string') return { bytes: Buffer.from(body, 'utf8'), contentType: 'text/plain;charset=UTF-8' };
-  if (body instanceof URLSearchParams) return { bytes: Buffer.from(body.toString(), 'utf8'), contentType: 'application/x-www-form-urlencoded;charset=UTF-8' };
-  if (ArrayBuffer.isView(body)) return { bytes: Buffer.from(body.buffer, body.byteOffset, body.byteLength), contentType: null };
-  if (body instanceof ArrayBuffer) return { bytes: Buffer.from(body), contentType: null };
+  if (typeof body === 'string') return { pieces: [Buffer.from(body, 'utf8')], contentType: 'text/plain;charset=UTF-8' };
+  if (body instanceof URLSearchParams) return { pieces: [Buffer.from(body.toString(), 'utf8')], contentType: 'application/x-www-form-urlencoded;charset=UTF-8' };
+  if (ArrayBuffer.isView(body)) return { pieces: [Buffer.from(body.buffer, body.byteOffset, body.byteLength)], contentType: null };
+  if (body instanceof ArrayBuffer) return { pieces: [Buffer.from(body)], contentType: null };
   if (typeof (body as FormData).entries === 'function' && typeof (body as FormData).append === 'function') return multipart(body as FormData);
-  if (isFileLike(body)) return { bytes: Buffer.from(await body.arrayBuffer()), contentType: body.type || null };
+  if (isFileLike(body)) return { pieces: [Buffer.from(await body.arrayBuffer())], contentType: body.type || null };
   throw new TypeError(`this transport does not send a ${Object.prototype.toString.call(body)} body`);
 }
 
@@ -95,7 +96,7 @@ export async function nodeHttpFetch(input: FetchInput, init: RequestInit = {}): 
   const headers = headerRecord(init.headers);
   if (body) {
     if (body.contentType && !('content-type' in headers)) headers['content-type'] = body.contentType;
-    headers['content-length'] = String(body.bytes.length);
+    headers['content-length'] = String(body.pieces.reduce((total, piece) => total + piece.length, 0));
   }
   const send = url.protocol === 'http:' ? httpRequest : httpsRequest;
   return new Promise<Response>((resolve, reject) => {
@@ -122,6 +123,9 @@ export async function nodeHttpFetch(input: FetchInput, init: RequestInit = {}): 
       signal?.removeEventListener('abort', onAbort);
       reject(error);
     });
-    outgoing.end(body?.bytes);
+    // Corked, the pieces leave in one write; end() uncorks.
+    outgoing.cork();
+    for (const piece of body?.pieces ?? []) outgoing.write(piece);
+    outgoing.end();
   });
 }

@@ -1,5 +1,6 @@
 import type { WebClient } from '@slack/web-api';
 import type { SlackFile } from '../../src/render/encodeSlack.ts';
+import { bufferView } from '../http/bufferView.ts';
 
 export type UploadResult = { ok: true } | { ok: false; reason: string };
 
@@ -15,7 +16,7 @@ export async function uploadSlackImages(client: WebClient, channelId: string, fi
       channel_id: channelId,
       ...(threadTs ? { thread_ts: threadTs } : {}),
       file_uploads: files.map((file) => ({
-        file: Buffer.from(file.png),
+        file: bufferView(file.png),
         filename: file.fileName,
         title: file.title,
         alt_text: file.altText,
