@@ -101,8 +101,10 @@ if (platform !== 'slack' && platform !== 'discord') throw new Error('usage: chat
 const memory = memorySampler();
 const slack = platform === 'slack' ? await startSlackStandIn() : null;
 const discord = platform === 'discord' ? await startDiscordStandIn() : null;
-// The timing side decodes no uploaded picture: its event loop stays free to time acknowledgements.
+// The timing side decodes no uploaded picture and keeps no request: its event loop stays free to
+// time acknowledgements, and its heap small.
 (slack ?? discord)!.skipMultipartBodies();
+(slack ?? discord)!.keepNoCalls();
 
 let generatorThread: Promise<Worker> | null = null;
 

@@ -66,6 +66,7 @@ export class RecordingServer {
   private readonly callListeners = new Set<(call: RecordedCall) => void>();
   private port = 0;
   private parseMultipart = true;
+  private keepCalls = true;
 
   constructor(private readonly handle: Handler) {
     this.server = createServer((request, response) => void this.serve(request, response));
@@ -104,6 +105,14 @@ export class RecordingServer {
    */
   skipMultipartBodies(): void {
     this.parseMultipart = false;
+  }
+
+  /**
+   * Keeps no record of calls (listeners are still told of each): a benchmark's stand-in would
+   * otherwise hold every request body, images included, and spend its time collecting them.
+   */
+  keepNoCalls(): void {
+    this.keepCalls = false;
   }
 
   /** Told of every call as it is recorded (benchmarks time answers this way); returns an unsubscribe. */
@@ -193,7 +202,7 @@ export class RecordingServer {
       reply = { status: 400, body: { message: `stand-in could not read the request: ${String(error)}` } };
     }
     call.status = reply.status;
-    this.calls.push(call);
+    if (this.keepCalls) this.calls.push(call);
     for (const listener of this.callListeners) listener(call);
     for (const wake of [...this.listeners]) wake();
     const isText = typeof reply.body === 'string' || reply.body === undefined;

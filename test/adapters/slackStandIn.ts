@@ -15,6 +15,7 @@ export class SlackStandIn extends RecordingServer {
   readonly botUserId = 'U0LAPSEBOT';
   private readonly methodErrors = new Map<string, string[]>();
   private postCounter = 0;
+  private uploadCounter = 0;
   private wss: WebSocketServer | undefined;
   private readonly socketClients: WebSocket[] = [];
   readonly socketAcks: SocketAck[] = [];
@@ -133,7 +134,8 @@ export class SlackStandIn extends RecordingServer {
         return { ok: true, channel: call.body?.channel, ts, message: { text: call.body?.text, ts } };
       }
       case 'files.getUploadURLExternal': {
-        const fileId = `F${String(this.calls.length).padStart(8, '0')}`;
+        this.uploadCounter += 1;
+        const fileId = `F${String(this.uploadCounter).padStart(8, '0')}`;
         return { ok: true, upload_url: `${this.origin}/upload/${fileId}`, file_id: fileId };
       }
       case 'files.completeUploadExternal': {
