@@ -53,6 +53,8 @@ export function createSlackApp(options: SlackReceiverOptions & { handOff: HandOf
     token: options.botToken,
     logLevel: options.logLevel ?? LogLevel.WARN,
     clientOptions: answerClientOptions(options.apiUrl),
+    // No conversation state is kept between commands: Bolt's in-memory store would run on every ack.
+    convoStore: false,
     ...(mode === 'socket'
       ? { socketMode: true, appToken: options.appToken }
       : { signingSecret: options.signingSecret, customRoutes: boltRoutes([healthRoute, ...(options.extraRoutes ?? [])]) }),

@@ -87,6 +87,10 @@ describe('node:http transport for the platform clients', () => {
     expect(ok.oursResponse.status).toBe(200);
     expect(await ok.oursResponse.json()).toEqual(await ok.theirResponse.json());
     expect(ok.oursResponse.headers.getSetCookie()).toEqual(['a=1', 'b=2']);
+    expect([ok.oursResponse.ok, ok.oursResponse.url, ok.oursResponse.bodyUsed]).toEqual([true, `${base}/answer`, true]);
+    // A body is read once, as with fetch.
+    await expect(ok.theirResponse.text()).rejects.toThrow(TypeError);
+    await expect(ok.oursResponse.text()).rejects.toThrow(TypeError);
     const empty = await both('/empty', () => ({ method: 'DELETE' }));
     expect([empty.oursResponse.status, empty.oursResponse.body]).toEqual([204, null]);
     const limited = await both('/limited', () => ({ method: 'POST', body: 'x' }));
