@@ -1,10 +1,10 @@
 import { DateTime } from 'luxon';
 import { buildDetailMessage, prepareDetailImage, type DetailContext } from '../../render/detailMessage.ts';
-import { buildLookupMessage, prepareChartImage } from '../../render/lookupMessage.ts';
 import type { Message } from '../../render/message.ts';
 import type { HourAssessment, SeriesAssessment } from '../../watch/seriesAssessment.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
 import { fetchAssessment } from '../fetchAssessment.ts';
+import { lookupAnswer } from '../lookupAnswers.ts';
 import { errorMessage } from '../replies.ts';
 import { resolvePlace, type ResolvedPlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
@@ -14,10 +14,7 @@ export async function lookUp(context: HandlerContext, ref: PlaceRef): Promise<Me
   if (!resolved.ok) return errorMessage(resolved.error, context.localFooterLine);
   const assessed = await fetchAssessment(context, resolved.place, { keepAnalysis: false });
   if (!assessed.ok) return errorMessage(assessed.error, context.localFooterLine);
-  const renderOptions = { footerLocalLine: context.localFooterLine };
-  // The chart is rasterised off the event loop first; the builder then finds it ready.
-  await prepareChartImage(assessed.series, context.channel.unitSystem, renderOptions);
-  return buildLookupMessage(assessed.series, context.channel.unitSystem, renderOptions);
+  return lookupAnswer(assessed.series, context.channel.unitSystem, { footerLocalLine: context.localFooterLine });
 }
 
 /** Which hour the detail view shows when the user names none: the coupling hour, else the deepest mixing. */
