@@ -380,7 +380,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
   console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE})`);
-  console.log('pictures (median; rasterising runs on the router thread: with the receivers in that thread too it delays every acknowledgement behind it):');
+  console.log('pictures (median, drawn here on this thread; answers have them drawn on the picture thread, src/render/rasterThread.ts):');
   await printPictureFigures();
   const results: RunResult[] = [];
   for (const platform of settings.platforms) {

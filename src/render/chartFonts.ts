@@ -1,7 +1,7 @@
 /**
  * The fonts our pictures are drawn with. resvg reads a font's whole file again for every run of
  * text it lays out (the 760 kB DejaVu Sans about ten times per label), which made text most of a
- * picture's cost. Subsets of DejaVu Sans with only the characters below, 30-35 kB each, draw the
+ * picture's cost. Subsets of DejaVu Sans with only the characters below, 43-48 kB each, draw the
  * same pixels at a fraction of the cost; a picture with any other character (a place name in
  * another script) is drawn with the full fonts. The subsets are made by
  * `npx tsx scripts/subsetChartFonts.ts` from the DejaVu files of Debian's fonts-dejavu-core, and
