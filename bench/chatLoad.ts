@@ -31,7 +31,7 @@ import { drawSkewTSvg } from '../src/render/skewTDiagram.ts';
 import { assessSeries } from '../src/watch/assessSeries.ts';
 import type { Message } from '../src/render/message.ts';
 import { createCommandRouter } from '../src/router/createCommandRouter.ts';
-import type { ActionRequest, AnswerHooks, CommandRequest, CommandRouter } from '../src/router/routerTypes.ts';
+import type { CommandRouter } from '../src/router/routerTypes.ts';
 import { openStore } from '../src/store/openStore.ts';
 import { loadRulesFile } from '../src/watch/rules/loadRules.ts';
 import { RouterDouble } from '../test/adapters/routerDouble.ts';
@@ -142,14 +142,14 @@ class AnswerLog implements CommandRouter {
 
   constructor(private readonly inner: CommandRouter) {}
 
-  async handleCommand(request: CommandRequest, hooks?: AnswerHooks): Promise<Message> {
-    const message = await this.inner.handleCommand(request, hooks);
+  async handleCommand(request: Parameters<CommandRouter['handleCommand']>[0]): Promise<Message> {
+    const message = await this.inner.handleCommand(request);
     this.note(message);
     return message;
   }
 
-  async handleAction(request: ActionRequest, hooks?: AnswerHooks): Promise<Message> {
-    const message = await this.inner.handleAction(request, hooks);
+  async handleAction(request: Parameters<CommandRouter['handleAction']>[0]): Promise<Message> {
+    const message = await this.inner.handleAction(request);
     this.note(message);
     return message;
   }

@@ -1,7 +1,7 @@
 import { REST } from '@discordjs/rest';
 import { WebClient } from '@slack/web-api';
 import type { Message } from '../../src/render/message.ts';
-import type { AnswerHooks, CommandRouter } from '../../src/router/routerTypes.ts';
+import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import { defaultDiscordEncoder, type DiscordEncoder } from '../discord/discordEncoder.ts';
 import { interactionRestOptions } from '../discord/interactionRestOptions.ts';
 import { askRouter } from '../slack/askRouter.ts';
@@ -48,37 +48,22 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   const discordRest = new REST({ ...interactionRestOptions(options.discord?.apiUrl), timeout: timeoutMs });
   const underWay = new Set<Promise<void>>();
 
-  function ask(question: Ask, hooks: AnswerHooks): Promise<Message> {
+  function ask(question: Ask): Promise<Message> {
     return askRouter(
-      () => (question.kind === 'command' ? router.handleCommand(question.request, hooks) : router.handleAction(question.request, hooks)),
+      () => (question.kind === 'command' ? router.handleCommand(question.request) : router.handleAction(question.request)),
       (error) => log('error', `router failed on a ${question.kind}: ${String(error)}`),
     );
   }
 
-  /** Posts the message's text (blocks) to the Slack response URL. */
-  function postSlackText(responseUrl: string, message: Message, encoded = slackEncode(message)): Promise<void> {
-    const { text, blocks } = encoded;
-    return postToResponseUrl(responseUrl, { response_type: slackVisibilityOf(message), replace_original: false, text, blocks }, timeoutMs);
-  }
-
-  /**
-   * `textPosted` is the post of the text made while the picture was drawn (AnswerHooks), settled
-   * with its failure or null; without it the text is posted here. The picture follows the text.
-   */
-  async function deliver(job: AnswerJob, message: Message, textPosted: Promise<unknown> | null): Promise<void> {
+  async function deliver(job: AnswerJob, message: Message): Promise<void> {
     if (job.platform === 'discord') {
       await editDeferredReply(discordRest, job.applicationId, job.interactionToken, discordEncode(message));
       return;
     }
-    const encoded = slackEncode(message);
-    if (textPosted) {
-      const failure = await textPosted;
-      if (failure !== null) throw failure;
-    } else {
-      await postSlackText(job.responseUrl, message, encoded);
-    }
-    const { files } = encoded;
-    if (slackVisibilityOf(message) !== 'in_channel' || files.length === 0) return;
+    const { text, blocks, files } = slackEncode(message);
+    const responseType = slackVisibilityOf(message);
+    await postToResponseUrl(job.responseUrl, { response_type: responseType, replace_original: false, text, blocks }, timeoutMs);
+    if (responseType !== 'in_channel' || files.length === 0) return;
     if (!slackClient) {
       log('warn', `images not attached in ${job.channelId}: no Slack bot token to upload with`);
       return;
@@ -88,23 +73,9 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   }
 
   async function answerOnce(job: AnswerJob): Promise<void> {
-    let textPosted: Promise<unknown> | null = null;
-    // Slack: the text goes out while the picture is drawn, the picture follows as an upload.
-    // Discord: one edit of the deferred reply carries both, so it waits for the picture.
-    const hooks: AnswerHooks =
-      job.platform === 'slack'
-        ? {
-            textReady: (textOnly) => {
-              textPosted ??= postSlackText(job.responseUrl, textOnly).then(
-                () => null,
-                (error: unknown) => error,
-              );
-            },
-          }
-        : {};
-    const message = await ask(job.ask, hooks);
+    const message = await ask(job.ask);
     try {
-      await deliver(job, message, textPosted);
+      await deliver(job, message);
     } catch (error) {
       // An expired response URL or token, a deleted channel, the platform down: nobody else to tell.
       log('warn', `answer not delivered on ${job.platform} (${job.ask.request.channelId}): ${error instanceof Error ? error.message : String(error)}`);

@@ -6,7 +6,7 @@ import { formatLocalDateHour } from './localTime.ts';
 import type { Message, MessageImage } from './message.ts';
 import type { RenderOptions } from './renderOptions.ts';
 import { buildMessage } from './safetyFooter.ts';
-import { drawSkewTPng, prepareSkewTPng, skewTPngReady } from './skewTDiagram.ts';
+import { drawSkewTPng, prepareSkewTPng } from './skewTDiagram.ts';
 import { sourceLine } from './sourceLine.ts';
 import {
   formatHeightAgl,
@@ -34,12 +34,6 @@ export interface DetailContext extends RenderOptions {
 export function prepareDetailImage(hour: HourAssessment, units: UnitSystem, context: DetailContext): Promise<void> {
   if (context.images === false || !hour.analysis) return Promise.resolve();
   return prepareSkewTPng(hour.analysis, { units, timeZone: context.timeZone, invented: context.invented });
-}
-
-/** Whether the detail view's diagram is drawn already (or none is wanted), so building the message waits for nothing. */
-export function detailImageReady(hour: HourAssessment, units: UnitSystem, context: DetailContext): boolean {
-  if (context.images === false || !hour.analysis) return true;
-  return skewTPngReady(hour.analysis, { units, timeZone: context.timeZone, invented: context.invented });
 }
 
 function skewTImage(analysis: AnalysisResult, units: UnitSystem, context: DetailContext): MessageImage[] {

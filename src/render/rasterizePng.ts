@@ -104,11 +104,6 @@ export function prepareSvgToPng(svg: string, cache: PngCache = sharedCache): Pro
   return rendering;
 }
 
-/** Whether the picture of `svg` is in the cache already (a builder calling `rasterizeSvgToPng` would wait for nothing). */
-export function svgPngReady(svg: string, cache: PngCache = sharedCache): boolean {
-  return cache.has(pictureKey(svg).key);
-}
-
 /** For the benchmarks: pictures actually rasterised in this process, and answers taken from the shared cache. */
 export function rasterizeCacheStats(): { rasterized: number; hits: number; entries: number; bytes: number } {
   return { rasterized: rasterizedCount, hits: sharedCache.stats.hits, entries: sharedCache.size, bytes: sharedCache.bytes };

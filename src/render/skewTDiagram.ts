@@ -1,7 +1,7 @@
 import type { AnalysisResult, LevelReport } from '../core/analysisResult.ts';
 import { INVENTED_DATA_NOTE } from './inventedDataNote.ts';
 import { formatLocalDateHour } from './localTime.ts';
-import { prepareSvgToPng, rasterizeSvgToPng, svgPngReady, type PngResult } from './rasterizePng.ts';
+import { prepareSvgToPng, rasterizeSvgToPng, type PngResult } from './rasterizePng.ts';
 import { SAFETY_FOOTER_SHORT } from './safetyFooter.ts';
 import {
   DEFAULT_SKEWT_FRAME,
@@ -307,11 +307,6 @@ function skewTSvgOnce(analysis: AnalysisResult, options: SkewTOptions): string {
 
 export function drawSkewTPng(analysis: AnalysisResult, options: SkewTOptions): PngResult {
   return rasterizeSvgToPng(skewTSvgOnce(analysis, options));
-}
-
-/** Whether the diagram's PNG is made already. */
-export function skewTPngReady(analysis: AnalysisResult, options: SkewTOptions): boolean {
-  return svgPngReady(skewTSvgOnce(analysis, options));
 }
 
 /** Rasterises the diagram off the event loop so that `drawSkewTPng` finds it ready. */

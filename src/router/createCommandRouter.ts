@@ -10,7 +10,7 @@ import { listWatching, startWatching, stopWatching } from './handlers/watchComma
 import { channelForCommand } from './channelForCommand.ts';
 import { errorMessage } from './replies.ts';
 import type { HandlerContext, RouterDependencies } from './routerContext.ts';
-import type { ActionRequest, AnswerHooks, CommandRequest, CommandRouter } from './routerTypes.ts';
+import type { ActionRequest, CommandRequest, CommandRouter } from './routerTypes.ts';
 
 /** Which verbs may change what is stored for the channel; the rest only read (channelForCommand.ts). */
 const VERB_WRITES: Record<Command['verb'], boolean> = {
@@ -35,14 +35,10 @@ const VERB_WRITES: Record<Command['verb'], boolean> = {
  * side is reported as such, with nothing changed and nothing thrown to the adapter.
  */
 export function createCommandRouter(dependencies: RouterDependencies, onFault: (error: unknown, what: string) => void = () => {}): CommandRouter {
-  async function contextFor(
-    request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>,
-    writes: boolean,
-    hooks: AnswerHooks,
-  ): Promise<HandlerContext> {
+  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>, writes: boolean): Promise<HandlerContext> {
     const target = { platform: request.platform, teamId: request.teamId, channelId: request.channelId };
     const channel = await channelForCommand(dependencies.store, target, dependencies.channelDefaults, dependencies.nowMs(), writes);
-    return { ...dependencies, channel, request, hooks };
+    return { ...dependencies, channel, request };
   }
 
   async function guarded(what: string, work: () => Promise<Message>): Promise<Message> {
@@ -92,15 +88,15 @@ export function createCommandRouter(dependencies: RouterDependencies, onFault: (
   }
 
   return {
-    handleCommand(request: CommandRequest, hooks: AnswerHooks = {}): Promise<Message> {
+    handleCommand(request: CommandRequest): Promise<Message> {
       const parsed = parseCommand(typeof request.text === 'string' ? request.text : '');
       if (!parsed.ok) return Promise.resolve(errorMessage(parsed.error, dependencies.localFooterLine));
       const { command } = parsed;
-      return guarded(`command ${command.verb}`, async () => run(await contextFor(request, VERB_WRITES[command.verb], hooks), command));
+      return guarded(`command ${command.verb}`, async () => run(await contextFor(request, VERB_WRITES[command.verb]), command));
     },
-    handleAction(request: ActionRequest, hooks: AnswerHooks = {}): Promise<Message> {
+    handleAction(request: ActionRequest): Promise<Message> {
       return guarded(`action ${request.actionId}`, async () => {
-        const context = await contextFor(request, request.actionId !== 'show-detail', hooks);
+        const context = await contextFor(request, request.actionId !== 'show-detail');
         if (request.actionId === 'mute-rule') return muteRule(context, request.value);
         if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
         return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);

@@ -1,7 +1,7 @@
 import type { ForecastLocation, ForecastSource } from '../forecast/forecastSource.ts';
 import type { Channel, ChannelDefaults, Store } from '../store/storeTypes.ts';
 import type { Rule } from '../watch/rules/rule.ts';
-import type { AnswerHooks, CommandRequest } from './routerTypes.ts';
+import type { CommandRequest } from './routerTypes.ts';
 
 /** Everything the router needs, handed in once at start-up. */
 export interface RouterDependencies {
@@ -26,5 +26,4 @@ export interface RouterDependencies {
 export interface HandlerContext extends RouterDependencies {
   channel: Channel;
   request: Pick<CommandRequest, 'platform' | 'userId' | 'canManageChannel'>;
-  hooks: AnswerHooks;
 }

@@ -25,18 +25,8 @@ export interface ActionRequest {
   canManageChannel: boolean;
 }
 
-/** What a caller may ask of the router beside the answer itself. */
-export interface AnswerHooks {
-  /**
-   * Called at most once, while the answer's picture is still being drawn, with the answer without
-   * it: an adapter can post the text at once and send the picture when the full answer resolves.
-   * Not called when the picture is ready already.
-   */
-  textReady?: (textOnly: Message) => void;
-}
-
 /** The router never throws: every outcome, including a user's mistake, is a message. */
 export interface CommandRouter {
-  handleCommand(request: CommandRequest, hooks?: AnswerHooks): Promise<Message>;
-  handleAction(request: ActionRequest, hooks?: AnswerHooks): Promise<Message>;
+  handleCommand(request: CommandRequest): Promise<Message>;
+  handleAction(request: ActionRequest): Promise<Message>;
 }

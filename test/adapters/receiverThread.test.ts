@@ -60,27 +60,6 @@ describe('chat receivers in their own thread', () => {
     expect(router.commands.at(-1)).toMatchObject({ platform: 'slack', text: 'Cinder Flats' });
   });
 
-  it('posts the text while the picture is still being drawn, and uploads the picture once it is ready', async () => {
-    router.textFirst = true;
-    router.hold();
-    try {
-      const uploadsBefore = slackStandIn.callsTo(/files\.completeUploadExternal$/).length;
-      const ack = await postSigned(eventsUrl(), slashCommandForm(slackCommandName(), 'Cinder Flats', slackStandIn.responseUrl('thread-text-first')), { secret });
-      expect(ack.status).toBe(200);
-      const text = await slackStandIn.waitForCall((call) => call.path === '/respond/thread-text-first');
-      expect(JSON.stringify(text.body)).toContain(SAFETY_FOOTER.slice(0, 40));
-      expect(slackStandIn.callsTo(/files\.completeUploadExternal$/).length).toBe(uploadsBefore);
-      router.release();
-      await slackStandIn.waitForCall((call) => /files\.completeUploadExternal$/.test(call.path) && call.at >= text.at);
-      // The text went once: the full answer did not post it again.
-      await new Promise((resolve) => setTimeout(resolve, 100));
-      expect(slackStandIn.calls.filter((call) => call.path === '/respond/thread-text-first')).toHaveLength(1);
-    } finally {
-      router.textFirst = false;
-      router.release();
-    }
-  });
-
   it('defers a Discord command, then edits the reply with the answer and its PNG', async () => {
     const { token } = discordStandIn.sendCommand(discordCommandName(), 'Cinder Flats');
     await discordStandIn.waitForCall((call) => call.method === 'POST' && call.path.includes(`/interactions/`) && call.path.includes(token));

@@ -1,6 +1,6 @@
 // A test double of the CommandRouter interface (not the real router): it answers fixed messages and
 // records what the adapters handed it, so the tests can check the adapters, which are under test.
-import type { ActionRequest, AnswerHooks, CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
+import type { ActionRequest, CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
 import type { Message } from '../../src/render/message.ts';
 import { buildMessage } from '../../src/render/safetyFooter.ts';
 
@@ -49,15 +49,11 @@ export class RouterDouble implements CommandRouter {
   private gate: Promise<void> | undefined;
   private openGate: (() => void) | undefined;
 
-  /** Hand the answer's text to `hooks.textReady` before waiting, as the real router does while a picture is drawn. */
-  textFirst = false;
-
   constructor(private readonly options: RouterDoubleOptions = {}) {}
 
-  async handleCommand(request: CommandRequest, hooks: AnswerHooks = {}): Promise<Message> {
+  async handleCommand(request: CommandRequest): Promise<Message> {
     this.commands.push(request);
     this.notify();
-    if (this.textFirst) hooks.textReady?.(fixedLookup(request.text, false));
     await this.pause();
     if (this.options.throws) throw new Error('router double told to throw');
     return fixedLookup(request.text, this.options.withImage ?? false);

@@ -162,16 +162,6 @@ describe('the command router', () => {
     expect(await store.rules.isMuted(channel!.id, 'mixing-reaches-dry-layer', '43.6200,-115.4800', NOW_MS + 7 * 3_600_000)).toBe(false);
   });
 
-  it('hands over the text of a detail view while its skew-T is drawn, and not when the picture is ready', async () => {
-    const texts: Message[] = [];
-    const first = await router.handleCommand(request('detail Alder Sink 13'), { textReady: (textOnly) => texts.push(textOnly) });
-    expect(first.kind).toBe('detail');
-    expect(first.images).toHaveLength(1);
-    expect(texts.map((textOnly) => [textOnly.kind, textOnly.title, textOnly.images.length])).toEqual([['detail', first.title, 0]]);
-    await router.handleCommand(request('detail Alder Sink 13'), { textReady: (textOnly) => texts.push(textOnly) });
-    expect(texts).toHaveLength(1);
-  });
-
   it('shows the detail of a named hour', async () => {
     const detail = await router.handleCommand(request('detail Kestrel Bench ICP 15'));
     expect(detail.kind).toBe('detail');

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { buildLookupMessage } from '../../src/render/lookupMessage.ts';
-import type { Message } from '../../src/render/message.ts';
 import { lookupAnswer } from '../../src/router/lookupAnswers.ts';
 import { makeSeries } from '../render/fixtures.ts';
 
@@ -17,18 +16,6 @@ describe('lookup answers shared between channels', () => {
     expect(await lookupAnswer(series, 'metric', {})).not.toBe(first);
     // Another forecast run is another assessment object: a new answer.
     expect(await lookupAnswer(makeSeries(), 'metric', { footerLocalLine: 'Invented desk line' })).not.toBe(first);
-  });
-
-  it('hand over their text first while the chart is drawn, and not again once the answer is built', async () => {
-    const series = makeSeries();
-    const texts: Message[] = [];
-    const full = await lookupAnswer(series, 'us', {}, (text) => texts.push(text));
-    expect(texts).toHaveLength(1);
-    expect(texts[0]!.images).toEqual([]);
-    expect(full.images).toHaveLength(1);
-    expect({ ...texts[0]!, images: full.images }).toEqual(full);
-    await lookupAnswer(series, 'us', {}, (text) => texts.push(text));
-    expect(texts).toHaveLength(1);
   });
 
   it('are frozen, so no adapter can change what the next channel receives', async () => {

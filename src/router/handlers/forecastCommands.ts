@@ -1,5 +1,5 @@
 import { DateTime } from 'luxon';
-import { buildDetailMessage, detailImageReady, prepareDetailImage, type DetailContext } from '../../render/detailMessage.ts';
+import { buildDetailMessage, prepareDetailImage, type DetailContext } from '../../render/detailMessage.ts';
 import type { Message } from '../../render/message.ts';
 import type { HourAssessment, SeriesAssessment } from '../../watch/seriesAssessment.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
@@ -14,7 +14,7 @@ export async function lookUp(context: HandlerContext, ref: PlaceRef): Promise<Me
   if (!resolved.ok) return errorMessage(resolved.error, context.localFooterLine);
   const assessed = await fetchAssessment(context, resolved.place, { keepAnalysis: false });
   if (!assessed.ok) return errorMessage(assessed.error, context.localFooterLine);
-  return lookupAnswer(assessed.series, context.channel.unitSystem, { footerLocalLine: context.localFooterLine }, context.hooks.textReady);
+  return lookupAnswer(assessed.series, context.channel.unitSystem, { footerLocalLine: context.localFooterLine });
 }
 
 /** Which hour the detail view shows when the user names none: the coupling hour, else the deepest mixing. */
@@ -66,9 +66,6 @@ async function detailFor(
     sourceName: series.sourceName,
     footerLocalLine: context.localFooterLine,
   };
-  const units = context.channel.unitSystem;
-  // The text can go out while the skew-T is drawn (AnswerHooks); not when the picture is ready already.
-  if (context.hooks.textReady && !detailImageReady(hour, units, detailContext)) context.hooks.textReady(buildDetailMessage(hour, units, { ...detailContext, images: false }));
-  await prepareDetailImage(hour, units, detailContext);
-  return buildDetailMessage(hour, units, detailContext);
+  await prepareDetailImage(hour, context.channel.unitSystem, detailContext);
+  return buildDetailMessage(hour, context.channel.unitSystem, detailContext);
 }
