@@ -10,22 +10,22 @@ export type AssessmentResult = { ok: true; series: SeriesAssessment } | { ok: fa
 
 /**
  * A cached forecast comes back as the same series object to every channel that asks until the next
- * run, and assessing it is a pure function of it: assess it once. Lookup assessments (small) live
- * exactly as long as their series, in a WeakMap; assessments that keep every hour's full analysis
- * (several times the series' own size, for the detail view) only for the few latest series.
+ * run, and assessing it is a pure function of it: assess it once. Every assessment keeps each
+ * hour's full analysis (it is made anyway; keeping it costs memory, not time), so the detail view
+ * of a place just looked up (its button) needs no second assessment. Those full assessments
+ * (several times the series' own size) are held only for the few latest series; lookups get the
+ * same assessment without the analyses, held exactly as long as their series, in a WeakMap.
  */
 const lookupAssessments = new WeakMap<ForecastSeries, SeriesAssessment>();
 const detailAssessments = new Map<ForecastSeries, SeriesAssessment>();
 const MAX_DETAIL_ASSESSMENTS = 8;
 
-function assessOnce(series: ForecastSeries, keepAnalysis: boolean): SeriesAssessment {
-  if (!keepAnalysis) {
-    const known = lookupAssessments.get(series);
-    if (known) return known;
-    const assessed = assessSeries(series, { keepAnalysis: false });
-    lookupAssessments.set(series, assessed);
-    return assessed;
-  }
+/** The assessment as a lookup holds it: the same hours without their full analyses. */
+function withoutAnalyses(assessment: SeriesAssessment): SeriesAssessment {
+  return { ...assessment, hours: assessment.hours.map(({ analysis: _analysis, ...hour }) => hour) };
+}
+
+function detailAssessment(series: ForecastSeries): SeriesAssessment {
   const known = detailAssessments.get(series);
   if (known) {
     // Most recently used last, so the first key is the one to drop.
@@ -36,6 +36,15 @@ function assessOnce(series: ForecastSeries, keepAnalysis: boolean): SeriesAssess
   const assessed = assessSeries(series, { keepAnalysis: true });
   detailAssessments.set(series, assessed);
   if (detailAssessments.size > MAX_DETAIL_ASSESSMENTS) detailAssessments.delete(detailAssessments.keys().next().value as ForecastSeries);
+  return assessed;
+}
+
+function assessOnce(series: ForecastSeries, keepAnalysis: boolean): SeriesAssessment {
+  if (keepAnalysis) return detailAssessment(series);
+  const known = lookupAssessments.get(series);
+  if (known) return known;
+  const assessed = withoutAnalyses(detailAssessment(series));
+  lookupAssessments.set(series, assessed);
   return assessed;
 }
 
