@@ -8,13 +8,18 @@ export interface ReceiverThreadSettings {
   discord: Omit<DiscordReceiverOptions, 'log'> | null;
   /** GET paths on the Slack receiver's port answered by the main thread (e.g. /metrics). */
   textRoutePaths: string[];
+  /**
+   * The nice value the receivers run at: the main thread's before it lowered its own. A thread
+   * started later (a restart) inherits the lowered value and goes back to this one where allowed.
+   */
+  nice: number | null;
 }
 
 export type LogLevelName = 'info' | 'warn' | 'error';
 
 /** Receiver thread to main thread. */
 export type FromReceiver =
-  | { type: 'ready'; slack: { mode: 'http' | 'socket'; port: number } | null; discord: boolean; heapUsedMb: number }
+  | { type: 'ready'; slack: { mode: 'http' | 'socket'; port: number } | null; discord: boolean; heapUsedMb: number; nice: number | null }
   | { type: 'failed'; error: string }
   | { type: 'job'; job: AnswerJob }
   | { type: 'log'; level: LogLevelName; text: string }

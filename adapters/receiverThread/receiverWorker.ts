@@ -5,6 +5,7 @@
  * is free when a command arrives, so acknowledgements do not wait behind answers.
  */
 import type { IncomingMessage, ServerResponse } from 'node:http';
+import { getPriority, setPriority } from 'node:os';
 import { getHeapStatistics } from 'node:v8';
 import { parentPort, workerData } from 'node:worker_threads';
 import { startDiscordReceiver, type RunningDiscordBot } from '../discord/createDiscordBot.ts';
@@ -16,6 +17,30 @@ const port = parentPort!;
 const settings = workerData.settings as ReceiverThreadSettings;
 const send = (message: FromReceiver): void => port.postMessage(message);
 const handOff: HandOff = (job) => send({ type: 'job', job });
+
+/**
+ * A receiver thread started after the main thread lowered its priority (a restart after a crash)
+ * inherits the lower priority, and its acknowledgements would wait behind answers: go back to the
+ * receivers' own. Raising a priority needs privilege (CAP_SYS_NICE, or RLIMIT_NICE); without it
+ * the thread says so and runs on at the lower one.
+ */
+function restoreReceiverNice(): number | null {
+  let now: number;
+  try {
+    now = getPriority(0);
+  } catch {
+    return null;
+  }
+  if (settings.nice === null || now <= settings.nice) return now;
+  try {
+    setPriority(0, settings.nice);
+    return settings.nice;
+  } catch (error) {
+    send({ type: 'log', level: 'warn', text: `chat receiver thread runs at nice ${now}, not ${settings.nice}: ${error instanceof Error ? error.message : String(error)}` });
+    return now;
+  }
+}
+const receiverNice = restoreReceiverNice();
 
 let nextRouteId = 1;
 const routeAnswers = new Map<number, (answer: Extract<ToReceiver, { type: 'route-answer' }>) => void>();
@@ -65,7 +90,7 @@ try {
   if (settings.discord) {
     discord = await startDiscordReceiver({ ...settings.discord, handOff, log: (level, text) => send({ type: 'log', level, text }) });
   }
-  send({ type: 'ready', slack: slack ? { mode: slack.mode, port: slack.port } : null, discord: discord !== null, heapUsedMb: getHeapStatistics().used_heap_size / 2 ** 20 });
+  send({ type: 'ready', slack: slack ? { mode: slack.mode, port: slack.port } : null, discord: discord !== null, heapUsedMb: getHeapStatistics().used_heap_size / 2 ** 20, nice: receiverNice });
 } catch (error) {
   await stopAll();
   send({ type: 'failed', error: error instanceof Error ? error.message : String(error) });

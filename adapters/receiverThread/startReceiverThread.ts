@@ -30,6 +30,8 @@ export interface RunningReceiverThread {
   readonly discord: boolean;
   /** The receiver thread's V8 heap in use once it was ready, MB. */
   readonly heapUsedAtReadyMb: number;
+  /** The running receiver thread's nice value when it became ready (null where unknown). */
+  readonly receiverNice: number | null;
   /** How many times the thread has been restarted after dying. */
   restarts(): number;
   /** The thread now running (for its id and, in tests, to end it as a crash would). */
@@ -56,6 +58,15 @@ function lowerThisThread(nice: number, log: ReceiverThreadOptions['log']): numbe
   }
 }
 
+/** This thread's nice value, or null where the system will not say. */
+function niceOfThisThread(): number | null {
+  try {
+    return getPriority(0);
+  } catch {
+    return null;
+  }
+}
+
 function newReceiverWorker(settings: ReceiverThreadSettings): Worker {
   return startModuleWorker(import.meta.url, 'receiverWorker', { settings });
 }
@@ -77,7 +88,7 @@ export async function startReceiverThread(options: ReceiverThreadOptions): Promi
     log,
   });
   const routes = new Map((options.textRoutes ?? []).map((route) => [route.path, route]));
-  const settings: ReceiverThreadSettings = { slack: options.slack ?? null, discord: options.discord ?? null, textRoutePaths: [...routes.keys()] };
+  const settings: ReceiverThreadSettings = { slack: options.slack ?? null, discord: options.discord ?? null, textRoutePaths: [...routes.keys()], nice: niceOfThisThread() };
   let stopping = false;
   let restartTimes: number[] = [];
   let restartCount = 0;
@@ -175,6 +186,9 @@ export async function startReceiverThread(options: ReceiverThreadOptions): Promi
     },
     get heapUsedAtReadyMb() {
       return current.heapUsedMb;
+    },
+    get receiverNice() {
+      return current.nice;
     },
     restarts: () => restartCount,
     currentWorker: () => worker,
