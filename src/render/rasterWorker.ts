@@ -8,16 +8,12 @@ import { parentPort } from 'node:worker_threads';
 import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
 import type { RasterReply, RasterRequest } from './rasterMessages.ts';
 
-/** The PNG in a buffer of its own, so handing it over (transferring) cannot take a shared pool with it. */
-function ownBuffer(bytes: Uint8Array): Uint8Array {
-  return bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : bytes.slice();
-}
-
 parentPort!.on('message', (request: RasterRequest) => {
   let reply: RasterReply;
   try {
     const rendered = new Resvg(request.svg, request.options as ResvgRenderOptions).render();
-    const png = ownBuffer(new Uint8Array(rendered.asPng()));
+    // Copied into an ArrayBuffer of its own, which can be handed over (transferred) whole.
+    const png = new Uint8Array(rendered.asPng());
     reply = { id: request.id, ok: true, png, widthPx: rendered.width, heightPx: rendered.height };
     parentPort!.postMessage(reply, [png.buffer as ArrayBuffer]);
   } catch (error) {
