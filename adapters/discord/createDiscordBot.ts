@@ -28,6 +28,9 @@ export interface DiscordBotOptions extends DiscordReceiverOptions {
   encode?: DiscordEncoder;
 }
 
+/** Where the adapter's warnings go when the caller gives no log. */
+const logToConsole = (level: 'warn' | 'error', text: string): void => console[level](`[discord] ${text}`);
+
 export interface RunningDiscordBot {
   client: Client;
   stop(): Promise<void>;
@@ -39,7 +42,7 @@ export function createDiscordBot(options: DiscordReceiverOptions & { handOff: Ha
   // This client only defers interactions; the answer edits the reply later through the
   // interaction's webhook token (see answering/).
   const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: interactionRestOptions(options.apiUrl) });
-  const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
+  const log = options.log ?? logToConsole;
   const handle = createInteractionHandler({ commandName: discordCommandName(), handOff: options.handOff, log });
   client.on(Events.InteractionCreate, (interaction) => {
     if (interaction.applicationId !== options.applicationId) return;
@@ -71,7 +74,7 @@ export async function startDiscordReceiver(options: DiscordReceiverOptions & { h
 
 /** Logs in with the router answering in this thread; `stop` lets answers under way finish. */
 export async function startDiscordBot(options: DiscordBotOptions): Promise<RunningDiscordBot> {
-  const log = options.log ?? ((level, text) => console[level](`[discord] ${text}`));
+  const log = options.log ?? logToConsole;
   const desk = createAnswerDesk({
     router: options.router,
     discord: { ...(options.apiUrl ? { apiUrl: options.apiUrl } : {}), ...(options.encode ? { encode: options.encode } : {}) },

@@ -5,13 +5,14 @@
  * is free when a command arrives, so acknowledgements do not wait behind answers.
  */
 import type { IncomingMessage, ServerResponse } from 'node:http';
-import { getPriority, setPriority } from 'node:os';
+import { setPriority } from 'node:os';
 import { getHeapStatistics } from 'node:v8';
 import { parentPort, workerData } from 'node:worker_threads';
 import { startDiscordReceiver, type RunningDiscordBot } from '../discord/createDiscordBot.ts';
 import { startSlackReceiver, type RunningSlackApp } from '../slack/createSlackApp.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import type { FromReceiver, ReceiverThreadSettings, ToReceiver } from './receiverMessages.ts';
+import { niceOfThisThread } from './threadNice.ts';
 
 const port = parentPort!;
 const settings = workerData.settings as ReceiverThreadSettings;
@@ -25,13 +26,8 @@ const handOff: HandOff = (job) => send({ type: 'job', job });
  * the thread says so and runs on at the lower one.
  */
 function restoreReceiverNice(): number | null {
-  let now: number;
-  try {
-    now = getPriority(0);
-  } catch {
-    return null;
-  }
-  if (settings.nice === null || now <= settings.nice) return now;
+  const now = niceOfThisThread();
+  if (now === null || settings.nice === null || now <= settings.nice) return now;
   try {
     setPriority(0, settings.nice);
     return settings.nice;

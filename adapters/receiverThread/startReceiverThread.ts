@@ -1,6 +1,7 @@
 import { getPriority, setPriority } from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import { startModuleWorker } from '../../src/threads/moduleWorker.ts';
+import { niceOfThisThread } from './threadNice.ts';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import type { DiscordReceiverOptions } from '../discord/createDiscordBot.ts';
@@ -54,15 +55,6 @@ function lowerThisThread(nice: number, log: ReceiverThreadOptions['log']): numbe
     return before;
   } catch (error) {
     log('warn', `could not lower the answering thread's priority: ${error instanceof Error ? error.message : String(error)}`);
-    return null;
-  }
-}
-
-/** This thread's nice value, or null where the system will not say. */
-function niceOfThisThread(): number | null {
-  try {
-    return getPriority(0);
-  } catch {
     return null;
   }
 }
