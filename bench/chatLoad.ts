@@ -18,6 +18,7 @@ import { LogLevel } from '@slack/bolt';
 import { startSlackApp } from '../adapters/slack/index.ts';
 import { slackCommandName } from '../adapters/slack/slackCommandName.ts';
 import { startDiscordBot } from '../adapters/discord/index.ts';
+import { WARM_UP_ROUNDS, warmUpAssessment } from '../src/app/warmUpAssessment.ts';
 import { startReceiverThread } from '../adapters/receiverThread/startReceiverThread.ts';
 import { discordCommandName } from '../adapters/discord/commands.ts';
 import { ANSWER_THREAD_NICE } from '../src/app/botRuntime.ts';
@@ -91,12 +92,16 @@ const COMMAND_MIX = ['Kestrel Bench ICP', 'Sawback Lookout', 'Alder Sink', 'deta
  * Untimed commands per run before the clock starts, as a bot that has been up a while has seen:
  * help, and a lookup and a detail view of a point none of the timed commands asks for. They load
  * the code paths (modules, JIT, the store's statements, the rasteriser and its fonts) but warm none
- * of the timed commands' forecasts, assessments or pictures: those meet their caches cold.
+ * of the timed commands' forecasts, assessments or pictures: those meet their caches cold. Before
+ * them, each run makes the same assessment warm-up `npm start` makes when a chat platform is
+ * configured (src/app/warmUpAssessment.ts), so the first run in this process is not the only one
+ * that meets the core uncompiled.
  */
 const WARM_UP_COMMANDS = ['help', '44.30,-116.90', 'detail 44.30,-116.90 15'];
 
 /** The real router as the app assembles it: SQLite in a temp folder, demo source behind the cache, shipped rules. */
 async function realRouter(): Promise<RouterUnderLoad> {
+  await warmUpAssessment();
   const folder = mkdtempSync(join(tmpdir(), 'lapsewatch-bench-'));
   const store = await openStore({ url: `sqlite:${join(folder, 'store.db')}` });
   const config = parseAppConfig({}, 'bench');
@@ -376,7 +381,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   };
   console.log(`chat load: ${settings.total} commands per platform and router, ${settings.concurrency} at a time, loopback, forecast cache warm, images on`);
   console.log(`  command mix (repeats): ${COMMAND_MIX.map((text) => `"${text}"`).join(', ')}`);
-  console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks)`);
+  console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks), after npm start's assessment warm-up (${WARM_UP_ROUNDS} invented series)`);
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
   console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE})`);

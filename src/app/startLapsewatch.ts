@@ -25,6 +25,7 @@ import { ANSWER_THREAD_NICE } from './botRuntime.ts';
 import { buildForecastSource } from './buildForecastSource.ts';
 import { clockFromEnvironment } from './demoClock.ts';
 import { readPlatformCredentials } from './platformCredentials.ts';
+import { warmUpAssessment } from './warmUpAssessment.ts';
 
 export interface StartOptions {
   environment: NodeJS.ProcessEnv;
@@ -89,6 +90,16 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
     },
     (error, what) => logger.error({ err: error instanceof Error ? error.message : String(error), what }, 'router fault'),
   );
+
+  // Chat platforms bring crowds: several channels asking at once right after a restart. Compile the
+  // core first, a turn of the event loop at a time, while the receivers start (the terminal's one
+  // user would only wait for it).
+  const warmUp = terminalOnly
+    ? Promise.resolve()
+    : warmUpAssessment().then(
+        (done) => logger.info({ rounds: done.rounds, elapsedMs: Math.round(done.elapsedMs) }, 'assessment warmed up'),
+        (error: unknown) => logger.warn({ err: error instanceof Error ? error.message : String(error) }, 'assessment warm-up failed; answers stay correct, the first ones slower'),
+      );
 
   const metrics = processMetrics();
   metrics.setOutboxStatsSource(() => store.outbox.stats(clock.nowMs()));
@@ -166,6 +177,7 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
   if (clockSetting.description) logger.warn(clockSetting.description);
 
   const shutDown = async () => {
+    await warmUp;
     await scheduler.stop();
     await sender.stop();
     if (health) await health.close();
