@@ -31,3 +31,23 @@ describe('the picture thread', () => {
     expect(next.ok).toBe(true);
   });
 });
+
+describe('the picture thread\'s memory', () => {
+  // resvg-js holds each picture's pixels in native memory until V8 collects the JS object around
+  // them (rasterWorker.ts). A 1200 x 1200 picture is 5.8 MB of pixels: 30 of them kept would add
+  // some 170 MB of rss (measured: 166 MB before the fix); collected, 3-6 MB stayed.
+  const bigSvg = (index: number) =>
+    `<svg xmlns="http://www.w3.org/2000/svg" width="1200" height="1200" viewBox="0 0 1200 1200"><rect x="${index}" y="10" width="700" height="700" fill="#2E6F95"/></svg>`;
+
+  it('gives back the pixels of pictures it has sent', async () => {
+    const first = await rasterizeOnPictureThread(bigSvg(0), options);
+    expect(first.ok).toBe(true);
+    const rssBeforeMb = process.memoryUsage().rss / 2 ** 20;
+    for (let index = 1; index <= 30; index += 1) {
+      const outcome = await rasterizeOnPictureThread(bigSvg(index), options);
+      expect(outcome.ok).toBe(true);
+    }
+    const grownMb = process.memoryUsage().rss / 2 ** 20 - rssBeforeMb;
+    expect(grownMb).toBeLessThan(80);
+  });
+});
