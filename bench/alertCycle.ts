@@ -10,7 +10,8 @@
  *    and Discord receivers (idle) in their own thread. It runs the cycle (real HTTP source and forecast cache), delivers the queue
  *    through the real posters, runs a second cycle on the same model run, and reports its memory.
  * Prints wall time, provider requests (goal: at most one per place and model run) and the bot's rss
- * high-water mark (the kernel's VmHWM, which counts start-up too). Goals: under 30 s, at most 200
+ * high-water mark (the kernel's VmHWM, which counts start-up too), also after the bot has answered
+ * lookups and detail views with their pictures (the picture thread). Goals: under 30 s, at most 200
  * requests, under 200 MB. Bounded: gives up after 300 s; the children stop themselves after 300 s.
  *
  *   npm run bench alerts
@@ -47,6 +48,9 @@ const progress = (text: string): void => void process.stderr.write(`alertCycle b
 const LATENCY_MS = 50;
 const BUDGET_MS = 300_000;
 const GOALS = { wallSeconds: 30, requests: PLACES, rssMb: 200 };
+/** Lookups (a 48-hour chart each) and detail views (a skew-T each) answered after the cycles. */
+const LOOKUPS = 20;
+const DETAIL_VIEWS = 5;
 
 /** Invented points on a 0.25° grid over the interior West: distinct on the cache's 0.1° grid. */
 function inventedPlaces(): Array<{ name: string; latitudeDeg: number; longitudeDeg: number }> {
@@ -122,6 +126,8 @@ export async function runAlertCycleBench(): Promise<void> {
     const delivered = await bot.ask<{ delivery: { posted: number; left: number; seconds: number; budgetSeconds: number }; memory: BotMemory; retainedHeapMb: number }>({ cmd: 'deliver' }, 120_000);
     // A second cycle on the same model run, after the interval: the cache answers, the provider hears nothing.
     const again = await bot.ask<{ report: AlertCheckReport; memory: BotMemory }>({ cmd: 'cycle-again' }, 120_000);
+    // Then crews ask while the bot runs: lookups and detail views with their pictures (the picture thread starts).
+    const lookups = await bot.ask<{ lookups: { asked: number; withPicture: number; seconds: number }; memory: BotMemory; resident: Record<string, number> }>({ cmd: 'lookups', points: places.slice(0, LOOKUPS), details: DETAIL_VIEWS }, 120_000);
     const childStats = await stats();
     const requestsSecondCycle = childStats.forecastRequests - requestsBefore - requests;
     const received = childStats.slackPosts + childStats.discordPosts;
@@ -129,6 +135,7 @@ export async function runAlertCycleBench(): Promise<void> {
     const { delivery } = delivered;
     const cycleRssMb = cycle.memory.rssHighWaterMb ?? cycle.memory.sampledPeakRssMb;
     const overallRssMb = again.memory.rssHighWaterMb ?? again.memory.sampledPeakRssMb;
+    const withPicturesRssMb = lookups.memory.rssHighWaterMb ?? lookups.memory.sampledPeakRssMb;
 
     const verdict = (met: boolean): string => (met ? 'MET' : 'MISSED');
     console.log(`Alert-check cycle: ${CHANNELS} channels watching ${PLACES} invented places, forecast stand-in at ${LATENCY_MS} ms per request, SQLite store`);
@@ -142,8 +149,10 @@ export async function runAlertCycleBench(): Promise<void> {
     console.log(`  provider requests, 2nd cycle same run      ${requestsSecondCycle}  (places checked ${again.report.placesChecked})`);
     console.log(`  bot rss high-water mark, start + cycle     ${cycleRssMb.toFixed(0)} MB  (goal < ${GOALS.rssMb} MB) ${verdict(cycleRssMb < GOALS.rssMb)}`);
     console.log(`  bot rss high-water mark, + delivery + 2nd  ${overallRssMb.toFixed(0)} MB  (goal < ${GOALS.rssMb} MB) ${verdict(overallRssMb < GOALS.rssMb)}`);
+    console.log(`  bot rss high-water mark, + ${lookups.lookups.asked} answers with pictures ${withPicturesRssMb.toFixed(0)} MB  (the ${GOALS.rssMb} MB goal is the cycle's; pictures add the picture thread: ${withPicturesRssMb < GOALS.rssMb ? 'under it' : `${(withPicturesRssMb - GOALS.rssMb).toFixed(0)} MB over it`})  (${LOOKUPS} lookups and ${DETAIL_VIEWS} detail views of watched places, 4 at a time, ${lookups.lookups.withPicture} with a picture, ${lookups.lookups.seconds.toFixed(2)} s; rss after ${lookups.memory.rssMb.toFixed(0)} MB)`);
     console.log(`  bot rss at start / store open / receivers up / after cycle ${botHello.rssAtStartMb.toFixed(0)} / ${botHello.rssOpenedMb.toFixed(0)} / ${botHello.rssReceiversMb.toFixed(0)} / ${cycle.memory.rssMb.toFixed(0)} MB  (high-water: kernel VmHWM; sampled every 25 ms ${again.memory.sampledPeakRssMb.toFixed(0)} MB; receiver thread's heap at start ${botHello.receiverHeapMb.toFixed(0)} MB)`);
     console.log(`  bot resident after the cycle, by kind      ${Object.entries(cycle.resident).map(([kind, value]) => `${kind} ${value.toFixed(0)}`).join(', ')} MB`);
+    console.log(`  bot resident after the answers, by kind    ${Object.entries(lookups.resident).map(([kind, value]) => `${kind} ${value.toFixed(0)}`).join(', ')} MB`);
     console.log(`  bot heap used: peak cycle / peak overall   ${cycle.memory.peakHeapUsedMb.toFixed(0)} / ${again.memory.peakHeapUsedMb.toFixed(0)} MB`);
     console.log(`  bot heap retained after a full GC          ${cycle.retainedHeapMb.toFixed(0)} MB after the cycle, ${delivered.retainedHeapMb.toFixed(0)} MB after delivery (the rest of each peak was garbage not yet collected)`);
     console.log(`  stand-ins' process, rss / heap high-water  ${childStats.peakRssMb.toFixed(0)} / ${childStats.peakHeapUsedMb.toFixed(0)} MB  (not the bot's)`);

@@ -25,6 +25,7 @@ import { createDiscordPoster } from '../adapters/discord/discordPoster.ts';
 import { startReceiverThread } from '../adapters/receiverThread/startReceiverThread.ts';
 import { ANSWER_THREAD_NICE } from '../src/app/botRuntime.ts';
 import { createCommandRouter } from '../src/router/createCommandRouter.ts';
+import { warmUpAssessment } from '../src/app/warmUpAssessment.ts';
 import { memorySampler, serveParent } from './childSide.ts';
 
 const [storeUrl, forecastBaseUrl, slackApiUrl, discordApiUrl, nowText, discordApplicationId] = process.argv.slice(2);
@@ -103,6 +104,8 @@ const receivers = await startReceiverThread({
   log: (level, text) => logger[level](text),
   answerThreadNice: ANSWER_THREAD_NICE,
 });
+// As npm start does with a chat platform configured.
+await warmUpAssessment();
 const rssReceiversMb = mb(process.memoryUsage().rss);
 const memory = memorySampler(25);
 
@@ -129,6 +132,27 @@ async function deliver() {
   }
   const left = (await store.outbox.stats(nowMs + 86_400_000)).queueDepth;
   return { posted, left, seconds: (performance.now() - startedAtMs) / 1000, budgetSeconds: DELIVERY_BUDGET_MS / 1000 };
+}
+
+/**
+ * Crews asking while the alerts go out: lookups (each draws its 48-hour chart) and detail views
+ * (each draws a skew-T) of watched places through the router, a few at a time, so the picture
+ * thread starts and holds its pictures. Counts the answers that came with a picture.
+ */
+async function answerLookups(points: Array<{ latitudeDeg: number; longitudeDeg: number }>, details: number) {
+  const texts = [...points.map((point) => `${point.latitudeDeg},${point.longitudeDeg}`), ...points.slice(0, details).map((point) => `detail ${point.latitudeDeg},${point.longitudeDeg} 15`)];
+  let withPicture = 0;
+  const startedAtMs = performance.now();
+  const next = { index: 0 };
+  const caller = async () => {
+    while (next.index < texts.length) {
+      const text = texts[next.index++]!;
+      const message = await router.handleCommand({ platform: 'slack', teamId: 'T0INVENTED', channelId: 'C0BENCH0', userId: 'U0BENCH', text, canManageChannel: true });
+      if (message.images.length > 0) withPicture += 1;
+    }
+  };
+  await Promise.all(Array.from({ length: 4 }, caller));
+  return { asked: texts.length, withPicture, seconds: (performance.now() - startedAtMs) / 1000 };
 }
 
 function memoryNow() {
@@ -161,6 +185,10 @@ serveParent(
       case 'cycle-again': {
         const report = await cycle.run(nowMs + 30 * 60_000);
         return { report, memory: memoryNow() };
+      }
+      case 'lookups': {
+        const lookups = await answerLookups(request.points as Array<{ latitudeDeg: number; longitudeDeg: number }>, Number(request.details));
+        return { lookups, memory: memoryNow(), resident: residentBreakdownMb() };
       }
       default:
         throw new Error(`unknown request ${String(request.cmd)}`);
