@@ -11,8 +11,9 @@
  *  4. for each crossing, the channels that have not muted that rule there get one message each,
  *     written with the crossing record in one transaction (`recordCrossingWithOutbox`); a crossing
  *     already announced is re-announced only when `deps.isMaterialUpdate` says so
- *     (`recordCrossingUpdate`);
- *  5. mark the place checked and complete the job.
+ *     (`recordCrossingUpdate`), and told as it stands to channels whose watch is new
+ *     (`queueRecordedCrossing`), so a channel that joins late hears the warnings others heard;
+ *  5. mark the watches it saw checked and complete the job.
  * A replica that dies mid-job leaves the job to another once its lease (60 s) runs out; rows it
  * wrote are whole transactions, so a re-run finds them and writes nothing twice.
  *
@@ -194,6 +195,8 @@ export interface AlertCheckReport {
   crossingsRecorded: number;
   updatesRecorded: number;
   duplicates: number;
+  /** Crossings already announced, told to channels whose watch of the place is new. */
+  toldNewWatches: number;
   messagesQueued: number;
   mutedSkips: number;
   /** Ends of events never announced as onsets on the same local day: not told. */
@@ -208,7 +211,7 @@ export interface AlertCheckCycle {
 function emptyReport(): AlertCheckReport {
   return {
     placesWatched: 0, placesDue: 0, placesChecked: 0, jobsBusyOrDone: 0, forecastRequests: 0, forecastFailures: 0,
-    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
+    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, toldNewWatches: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
   };
 }
 
@@ -246,8 +249,8 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     nowMs: number,
     report: AlertCheckReport,
   ): Promise<void> {
-    const render = (revision: number): OutgoingMessage[] =>
-      recipients.map((watch) => ({
+    const render = (revision: number, to: WatchWithChannel[] = recipients): OutgoingMessage[] =>
+      to.map((watch) => ({
         target: { platform: watch.channel.platform, teamId: watch.channel.teamId, channelId: watch.channel.channelId },
         payload: messageToPayload(
           deps.renderAlert({ crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision }),
@@ -266,6 +269,14 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     const existing = first.existing;
     if (!deps.isMaterialUpdate(announcedAsWatchCrossing(existing, found), found)) {
       report.duplicates += 1;
+      // A channel that started watching after the announcement has not heard it: it is its first.
+      const newWatches = recipients.filter((watch) => watch.lastAlertCheckAtMs === null);
+      if (newWatches.length === 0) return;
+      const told = await store.alerts.queueRecordedCrossing(crossing, render(0, newWatches), nowMs);
+      if (told.status === 'recorded' && told.outboxIds.length > 0) {
+        report.toldNewWatches += 1;
+        report.messagesQueued += told.outboxIds.length;
+      }
       return;
     }
     const update = await store.alerts.recordCrossingUpdate(crossing, existing.revision, render(existing.revision + 1), nowMs);
@@ -359,7 +370,8 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       }
       try {
         await checkPlace(check, nowMs, report);
-        await store.watches.markAlertChecked(check.locationKey, nowMs);
+        // Only the watches this check saw: one added meanwhile stays new, and is told at the next tick.
+        await store.watches.markAlertChecked(check.locationKey, nowMs, check.watches.map((watch) => watch.id));
         await store.jobs.completeJob(check.jobKey, workerId, nowMs);
         report.placesChecked += 1;
       } catch (error) {

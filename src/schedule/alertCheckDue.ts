@@ -3,12 +3,14 @@
  * each. Pure: the caller passes the watches (grouped by location key), now, and what it knows of
  * model runs.
  *
- * A place is due when a watch of it was never checked (a new watch is checked at the next tick),
+ * A place is due when a watch of it was never checked (a new watch is checked at the next tick,
+ * also when other channels' watches of the place were checked before),
  * when the interval has passed since its oldest check, or when the source reports a model run
  * newer than the one its last check used. The job key names the state being superseded, so all
  * replicas that read the same state compete for the same key and the winner's `markAlertChecked`
  * moves everyone on to a new key.
  */
+import { createHash } from 'node:crypto';
 import type { WatchWithChannel } from '../store/storeTypes.ts';
 
 export const DEFAULT_ALERT_CHECK_INTERVAL_MS = 30 * 60_000;
@@ -43,6 +45,18 @@ export function oldestCheckAtMs(watches: readonly WatchWithChannel[]): number | 
   return Number.isFinite(oldest) ? oldest : null;
 }
 
+/**
+ * Names the watches not yet checked; the key adds the interval's number. A key of "never checked"
+ * alone was the same for every watch added later: the first check completed it, and a second
+ * channel's watch of the same place met that finished job for ever, so the place was never checked
+ * again for anyone. With the watches named, a new one is checked at the next tick; with the
+ * interval, a watch switched off and on again is too, at the latest one interval later.
+ */
+function neverCheckedDigest(watches: readonly WatchWithChannel[]): string {
+  const ids = watches.filter((watch) => watch.lastAlertCheckAtMs === null).map((watch) => watch.id).sort();
+  return createHash('sha256').update(ids.join(',')).digest('hex').slice(0, 24);
+}
+
 export interface AlertCheckDueInput {
   nowMs: number;
   groups: Map<string, WatchWithChannel[]>;
@@ -70,7 +84,7 @@ export function dueAlertChecks(input: AlertCheckDueInput): DueAlertCheck[] {
     else if (newRun) reason = 'new-model-run';
     else if (input.nowMs - oldest >= intervalMs) reason = 'interval';
     if (reason === null) continue;
-    const state = reason === 'new-model-run' ? `run:${input.latestRunTime}` : `after:${oldest ?? 'never'}`;
+    const state = reason === 'new-model-run' ? `run:${input.latestRunTime}` : oldest === null ? `new:${neverCheckedDigest(watches)}:${Math.floor(input.nowMs / intervalMs)}` : `after:${oldest}`;
     due.push({ locationKey, watches, reason, jobKey: `alert-check|${locationKey}|${state}` });
   }
   return due;

@@ -112,5 +112,19 @@ export function createAlertHistoryRepository({ db }: StoreContext): AlertHistory
         return { status: 'recorded' as const, record: toAlertRecord(updated), outboxIds: insertedIds };
       });
     },
+
+    async queueRecordedCrossing(crossing, messages, nowMs) {
+      const c = parseInput(crossingSchema, crossing, 'crossing');
+      parseInput(epochMsSchema, nowMs, 'nowMs');
+      const crossingKey = crossingKeyOf(c);
+      return db.transaction().execute(async (trx) => {
+        const current = await trx.selectFrom('alert_history').selectAll().where('crossing_key', '=', crossingKey).executeTakeFirst();
+        if (current === undefined) return { status: 'stale' as const, current: null };
+        const record = toAlertRecord(current);
+        // Keyed by the revision that stands: a channel already sent it gets nothing twice.
+        const { insertedIds } = await insertOutboxRows(trx, toOutboxRows(crossingKey, record.revision, messages, nowMs), nowMs);
+        return { status: 'recorded' as const, record, outboxIds: insertedIds };
+      });
+    },
   };
 }

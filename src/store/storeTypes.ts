@@ -147,8 +147,11 @@ export interface WatchRepository {
   listWatches(channelRef: string, options?: { includeInactive?: boolean }): Promise<Watch[]>;
   /** Every active watch in every active channel, with its channel. */
   listActiveWatchesWithChannel(): Promise<WatchWithChannel[]>;
-  /** Records that the alert check ran for a location (all active watches of that point). */
-  markAlertChecked(locationKey: string, checkedAtMs: number): Promise<number>;
+  /**
+   * Records that the alert check ran for a location: the active watches of that point, or only
+   * those of `watchIds` (the ones the check saw; a watch added meanwhile stays new).
+   */
+  markAlertChecked(locationKey: string, checkedAtMs: number, watchIds?: string[]): Promise<number>;
   /** Records the local date of the morning summary sent for these watches. */
   markSummarySent(watchIds: string[], localDate: string): Promise<number>;
 }
@@ -247,6 +250,12 @@ export interface AlertHistoryRepository {
    * transaction, only if the stored revision is still `expectedRevision`.
    */
   recordCrossingUpdate(crossing: Crossing, expectedRevision: number, messages: OutgoingMessage[], nowMs: number): Promise<RecordUpdateResult>;
+  /**
+   * A crossing already recorded, told to channels that start watching after it was announced: one
+   * outbox row per message at the stored revision, in one transaction; a row whose dedupe key is
+   * present (that channel was sent that revision) is skipped. 'stale' when no such crossing is recorded.
+   */
+  queueRecordedCrossing(crossing: Crossing, messages: OutgoingMessage[], nowMs: number): Promise<RecordUpdateResult>;
 }
 
 export type OutboxKind = 'alert' | 'summary' | 'notice';

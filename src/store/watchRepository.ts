@@ -51,11 +51,14 @@ export function createWatchRepository({ db }: StoreContext): WatchRepository {
           .where('location_key', '=', locationKey)
           .executeTakeFirstOrThrow();
         if (existing.id === id) return { watch: toWatch(existing), created: true };
-        // Watching the same point again: switch the old watch back on with the newest label.
+        // Watching the same point again: switch the old watch back on with the newest label. A watch
+        // that was off counts as new again, so its channel is told the warnings that stand (the
+        // outbox skips any it was already sent).
         await trx
           .updateTable('watches')
           .set({
             active: 1,
+            last_alert_check_at_ms: Number(existing.active) === 1 ? existing.last_alert_check_at_ms : null,
             place_name: w.placeName ?? existing.place_name,
             elevation_m: w.elevationM ?? existing.elevation_m,
             time_zone: w.timeZone ?? existing.time_zone,
@@ -125,15 +128,14 @@ export function createWatchRepository({ db }: StoreContext): WatchRepository {
       }));
     },
 
-    async markAlertChecked(locationKey, checkedAtMs) {
+    async markAlertChecked(locationKey, checkedAtMs, watchIds) {
       parseInput(locationKeySchema, locationKey, 'location key');
       parseInput(epochMsSchema, checkedAtMs, 'checkedAtMs');
-      const result = await db
-        .updateTable('watches')
-        .set({ last_alert_check_at_ms: checkedAtMs })
-        .where('location_key', '=', locationKey)
-        .where('active', '=', 1)
-        .executeTakeFirst();
+      const ids = watchIds === undefined ? undefined : parseInput(z.array(idSchema), watchIds, 'watch ids');
+      if (ids !== undefined && ids.length === 0) return 0;
+      let update = db.updateTable('watches').set({ last_alert_check_at_ms: checkedAtMs }).where('location_key', '=', locationKey).where('active', '=', 1);
+      if (ids !== undefined) update = update.where('id', 'in', ids);
+      const result = await update.executeTakeFirst();
       return Number(result.numUpdatedRows);
     },
 

@@ -93,6 +93,33 @@ describe('alert-check cycle', () => {
     expect(again.messagesQueued).toBe(0);
   });
 
+  it('a channel that starts watching a place others watch is checked at the next tick, and told what they were told', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const first = await cycle.run(MORNING);
+    expect(first.crossingsRecorded).toBeGreaterThan(0);
+    const announcedToA = (await allOutbox(store)).filter((row) => row.target === 'slack:C0AAA').map((row) => row.dedupeKey.split('|').slice(1, 5).join('|'));
+
+    // B joins after the place was checked: its watch is new, the place's crossings are not.
+    await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING + 60_000);
+    const joined = await cycle.run(MORNING + 2 * 60_000);
+    expect(joined.placesChecked).toBe(1);
+    expect(joined.crossingsRecorded).toBe(0);
+    // (allOutbox claims what it reads: these are the rows queued since.)
+    const queuedSince = await allOutbox(store);
+    // The same warnings, once each, to B only: A hears nothing twice.
+    expect(new Set(queuedSince.map((row) => row.target))).toEqual(new Set(['slack:C0BBB']));
+    expect(queuedSince.map((row) => row.dedupeKey.split('|').slice(1, 5).join('|')).sort()).toEqual([...announcedToA].sort());
+
+    // Checked: not due again before the interval, due after it, and nothing is repeated.
+    expect((await cycle.run(MORNING + 10 * 60_000)).placesDue).toBe(0);
+    const later = await cycle.run(MORNING + 40 * 60_000);
+    expect(later.placesChecked).toBe(1);
+    expect(later.messagesQueued).toBe(0);
+    expect(source.requests()).toBe(3);
+  });
+
   it('a newer model run makes a place due before the interval', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [ALDER_SINK], MORNING);
     const source = countingDemoSource();

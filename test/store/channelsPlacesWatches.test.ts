@@ -157,6 +157,28 @@ describeEachBackend('watches', (h) => {
     expect(byId.get(wc.id)).toMatchObject({ lastAlertCheckAtMs: null, lastSummaryLocalDate: '2031-07-14' });
   });
 
+  it('marks only the watches a check saw, and a watch switched off and on again counts as new', async () => {
+    const store = await h.openFresh();
+    const a = await store.channels.ensureChannel(target, defaults, 1_000);
+    const b = await store.channels.ensureChannel({ ...target, channelId: 'C-b' }, defaults, 1_000);
+    const wa = (await store.watches.addWatch(a.id, { latitudeDeg: 40, longitudeDeg: -110, createdBy: 'U' }, 1_000)).watch;
+    const wb = (await store.watches.addWatch(b.id, { latitudeDeg: 40, longitudeDeg: -110, createdBy: 'U' }, 1_000)).watch;
+    // The check saw A's watch only (B's came in while it ran).
+    expect(await store.watches.markAlertChecked(wa.locationKey, 5_000, [wa.id])).toBe(1);
+    expect(await store.watches.markAlertChecked(wa.locationKey, 5_000, [])).toBe(0);
+    const checkOf = async (channelId: string, watchId: string) => (await store.watches.listWatches(channelId)).find((w) => w.id === watchId)?.lastAlertCheckAtMs;
+    expect(await checkOf(a.id, wa.id)).toBe(5_000);
+    expect(await checkOf(b.id, wb.id)).toBeNull();
+    await expect(store.watches.markAlertChecked(wa.locationKey, 5_000, [''])).rejects.toThrow();
+
+    // Watching again while on keeps the check; after switching off, watching again makes it new.
+    await store.watches.addWatch(a.id, { latitudeDeg: 40, longitudeDeg: -110, createdBy: 'U' }, 6_000);
+    expect(await checkOf(a.id, wa.id)).toBe(5_000);
+    expect(await store.watches.deactivateWatch(a.id, wa.locationKey)).toBe(true);
+    const back = await store.watches.addWatch(a.id, { latitudeDeg: 40, longitudeDeg: -110, createdBy: 'U' }, 7_000);
+    expect(back).toMatchObject({ created: false, watch: { id: wa.id, active: true, lastAlertCheckAtMs: null } });
+  });
+
   it('leaves watches of inactive channels out of the scheduler list', async () => {
     const store = await h.openFresh();
     const a = await store.channels.ensureChannel(target, defaults, 1_000);
