@@ -16,6 +16,7 @@ import {
 import { clipPolyline, type Rect } from './clipToRect.ts';
 import { CHART_FONT_FAMILY, escapeXml, polylinePoints, px } from './svgMarkup.ts';
 import { fahrenheitToCelsius, formatHeightAgl, heightUnitLabel, metresToFeet, type UnitSystem } from './units.ts';
+import { KNOTS_PER_METRE_PER_SECOND, windBarbSvg } from './windBarbs.ts';
 
 export interface SkewTOptions {
   units: UnitSystem;
@@ -44,6 +45,7 @@ const INK = {
   dryLayerEdge: '#C9860A',
   mixed: '#1F6F5C',
   ground: '#E6E1D8',
+  wind: '#3B3A36',
 } as const;
 
 export const SKEWT_WIDTH_PX = 760;
@@ -162,6 +164,35 @@ function heightAxis(frame: SkewTFrame, levels: LevelReport[], units: UnitSystem)
   return out;
 }
 
+/** Closest two barbs may sit, px: closer, their feathers tangle. */
+const BARB_SPACING_PX = 24;
+/** The wind column's width at the plot's right edge, px; a barb's staff and feathers fit inside. */
+const WIND_COLUMN_PX = 80;
+
+/**
+ * The wind column: a barb at every level, thinned so that barbs stay BARB_SPACING_PX apart, from
+ * the ground up, on a pale strip at the right edge so the traces behind do not hide them.
+ */
+function windColumn(frame: SkewTFrame, levels: LevelReport[]): string {
+  const right = frame.leftPx + frame.widthPx;
+  const x = right - WIND_COLUMN_PX / 2;
+  const barbs: string[] = [];
+  let lastY = Number.POSITIVE_INFINITY;
+  for (const level of levels) {
+    if (level.pressureHpa > frame.bottomPressureHpa || level.pressureHpa < frame.topPressureHpa) continue;
+    if (!Number.isFinite(level.windSpeedMs) || !Number.isFinite(level.windDirDeg)) continue;
+    const y = yOfPressure(frame, level.pressureHpa);
+    // Feathers reach up to a barb's spacing above its level: none may cross the frame's top.
+    if (lastY - y < BARB_SPACING_PX || y - frame.topPx < BARB_SPACING_PX / 2) continue;
+    barbs.push(windBarbSvg(x, y, level.windDirDeg, level.windSpeedMs * KNOTS_PER_METRE_PER_SECOND, INK.wind));
+    lastY = y;
+  }
+  if (barbs.length === 0) return '';
+  const strip = `<rect x="${right - WIND_COLUMN_PX}" y="${frame.topPx}" width="${WIND_COLUMN_PX}" height="${frame.heightPx}" fill="#FFFFFF" fill-opacity="0.55"/>`;
+  const label = text(x, frame.topPx - 8, 'Wind, kt', `font-size="11" fill="${INK.faint}" text-anchor="middle"`);
+  return `<g id="wind-column">${strip}${label}${barbs.join('')}</g>`;
+}
+
 function legend(frame: SkewTFrame): string {
   const x = frame.leftPx + 10;
   const y = frame.topPx + 10;
@@ -174,7 +205,7 @@ function legend(frame: SkewTFrame): string {
     ['Moist adiabat', INK.moistAdiabat, '6 4'],
     ['Mixing ratio, g/kg', INK.mixingRatio, '2 3'],
   ];
-  const parts = [`<rect x="${x}" y="${y}" width="232" height="${rows.length * 17 + 30}" rx="4" fill="#FFFFFF" fill-opacity="0.92" stroke="${INK.isobar}"/>`];
+  const parts = [`<rect x="${x}" y="${y}" width="232" height="${rows.length * 17 + 47}" rx="4" fill="#FFFFFF" fill-opacity="0.92" stroke="${INK.isobar}"/>`];
   rows.forEach(([label, colour, dash], index) => {
     const rowY = y + 15 + index * 17;
     parts.push(
@@ -187,6 +218,7 @@ function legend(frame: SkewTFrame): string {
     `<rect x="${x + 8}" y="${swatchY - 6}" width="26" height="11" fill="${INK.dryLayerFill}" fill-opacity="0.35" stroke="${INK.dryLayerEdge}" stroke-width="0.8"/>`,
   );
   parts.push(text(x + 42, swatchY + 4, 'Dry near-dry-adiabatic layer', `font-size="11" fill="${INK.text}"`));
+  parts.push(text(x + 8, swatchY + 21, 'Wind barbs: flag 50 kt, feather 10, half 5', `font-size="11" fill="${INK.text}"`));
   return `<g id="legend">${parts.join('')}</g>`;
 }
 
@@ -265,6 +297,7 @@ export function drawSkewTSvg(analysis: AnalysisResult, options: SkewTOptions, fr
   traces.push(`<g id="dewpoint-trace">${clippedPolyline(dewpoints.map((l) => pointOf(frame, l.dewpointC, l.pressureHpa)), frame, `stroke="${INK.dewpoint}" ${traceStyle}`)}</g>`);
   traces.push(`<g id="temperature-trace">${clippedPolyline(levels.map((l) => pointOf(frame, l.temperatureC, l.pressureHpa)), frame, `stroke="${INK.temperature}" ${traceStyle}`)}</g>`);
   parts.push(...traces);
+  parts.push(windColumn(frame, levels));
 
   parts.push(`<rect x="${frame.leftPx}" y="${frame.topPx}" width="${frame.widthPx}" height="${frame.heightPx}" fill="none" stroke="${INK.frame}" stroke-width="1.2"/>`);
   for (const p of ISOBARS_HPA) {
