@@ -12,7 +12,9 @@
  *     written with the crossing record in one transaction (`recordCrossingWithOutbox`); a crossing
  *     already announced is re-announced only when `deps.isMaterialUpdate` says so
  *     (`recordCrossingUpdate`), and told as it stands to channels whose watch is new
- *     (`queueRecordedCrossing`), so a channel that joins late hears the warnings others heard;
+ *     (`queueRecordedCrossing`) to channels that had not heard it: a new watch, or a mute of the
+ *     rule that ended since the last check; so a channel that joins late, or snoozed a rule, hears
+ *     the warnings that stand;
  *  5. mark the watches it saw checked and complete the job.
  * A replica that dies mid-job leaves the job to another once its lease (60 s) runs out; rows it
  * wrote are whole transactions, so a re-run finds them and writes nothing twice.
@@ -195,8 +197,8 @@ export interface AlertCheckReport {
   crossingsRecorded: number;
   updatesRecorded: number;
   duplicates: number;
-  /** Crossings already announced, told to channels whose watch of the place is new. */
-  toldNewWatches: number;
+  /** Crossings already announced, told to channels that had not heard them (a new watch, a mute that ended). */
+  toldStanding: number;
   messagesQueued: number;
   mutedSkips: number;
   /** Ends of events never announced as onsets on the same local day: not told. */
@@ -211,12 +213,30 @@ export interface AlertCheckCycle {
 function emptyReport(): AlertCheckReport {
   return {
     placesWatched: 0, placesDue: 0, placesChecked: 0, jobsBusyOrDone: 0, forecastRequests: 0, forecastFailures: 0,
-    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, toldNewWatches: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
+    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, toldStanding: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
   };
 }
 
+interface ChannelContext {
+  ruleSet: ChannelRuleSet;
+  /** Mutes in force now. */
+  mutes: Mute[];
+  /** Mutes that ended within ENDED_MUTES_LOOKBACK_MS. */
+  endedMutes: Mute[];
+}
+
+/** How far back an ended mute is looked for; longer than any pause between two checks of a place. */
+const ENDED_MUTES_LOOKBACK_MS = 7 * 86_400_000;
+
 function isMuted(mutes: readonly Mute[], ruleId: string, locationKey: string): boolean {
   return mutes.some((m) => m.ruleId === ruleId && (m.locationKey === locationKey || m.locationKey === ALL_LOCATIONS));
+}
+
+interface Member {
+  watch: WatchWithChannel;
+  mutes: Mute[];
+  /** The channel's mutes that ended since this watch's last check. */
+  endedSinceCheck: Mute[];
 }
 
 export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertCheckCycle {
@@ -230,11 +250,15 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
   /** Each place's last assessment (without per-hour analyses), for run-to-run worsenings. */
   const lastAssessment = new Map<string, SeriesAssessment>();
 
-  async function channelContext(channelRef: string, nowMs: number, cache: Map<string, Promise<{ ruleSet: ChannelRuleSet; mutes: Mute[] }>>) {
+  async function channelContext(channelRef: string, nowMs: number, cache: Map<string, Promise<ChannelContext>>) {
     let pending = cache.get(channelRef);
     if (!pending) {
-      pending = Promise.all([store.rules.listOverrides(channelRef), store.rules.listActiveMutes(channelRef, nowMs)]).then(
-        ([overrides, mutes]) => ({ ruleSet: channelRuleSet(deps.defaultRules, overrides), mutes }),
+      pending = Promise.all([store.rules.listOverrides(channelRef), store.rules.listMutesEndingAfter(channelRef, Math.max(0, nowMs - ENDED_MUTES_LOOKBACK_MS))]).then(
+        ([overrides, mutes]) => ({
+          ruleSet: channelRuleSet(deps.defaultRules, overrides),
+          mutes: mutes.filter((mute) => mute.untilMs > nowMs),
+          endedMutes: mutes.filter((mute) => mute.untilMs <= nowMs),
+        }),
       );
       cache.set(channelRef, pending);
     }
@@ -245,6 +269,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     found: WatchCrossing,
     crossing: Crossing,
     recipients: WatchWithChannel[],
+    owed: WatchWithChannel[],
     assessment: SeriesAssessment,
     nowMs: number,
     report: AlertCheckReport,
@@ -269,12 +294,11 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     const existing = first.existing;
     if (!deps.isMaterialUpdate(announcedAsWatchCrossing(existing, found), found)) {
       report.duplicates += 1;
-      // A channel that started watching after the announcement has not heard it: it is its first.
-      const newWatches = recipients.filter((watch) => watch.lastAlertCheckAtMs === null);
-      if (newWatches.length === 0) return;
-      const told = await store.alerts.queueRecordedCrossing(crossing, render(0, newWatches), nowMs);
+      // For a channel that had not heard it (new watch, mute ended), it is its first announcement.
+      if (owed.length === 0) return;
+      const told = await store.alerts.queueRecordedCrossing(crossing, render(0, owed), nowMs);
       if (told.status === 'recorded' && told.outboxIds.length > 0) {
-        report.toldNewWatches += 1;
+        report.toldStanding += 1;
         report.messagesQueued += told.outboxIds.length;
       }
       return;
@@ -303,15 +327,16 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     retryNotBeforeMs.delete(locationKey);
     const assessment = deps.assess(result.series);
     const previous = lastAssessment.get(locationKey);
-    const channelCache = new Map<string, Promise<{ ruleSet: ChannelRuleSet; mutes: Mute[] }>>();
+    const channelCache = new Map<string, Promise<ChannelContext>>();
     const contexts = await Promise.all(watches.map((w) => channelContext(w.channelRef, nowMs, channelCache)));
 
     // Channels with the same rules share one crossing computation.
-    const bySignature = new Map<string, { ruleSet: ChannelRuleSet; members: Array<{ watch: WatchWithChannel; mutes: Mute[] }> }>();
+    const bySignature = new Map<string, { ruleSet: ChannelRuleSet; members: Member[] }>();
     watches.forEach((watch, i) => {
-      const { ruleSet, mutes } = contexts[i]!;
+      const { ruleSet, mutes, endedMutes } = contexts[i]!;
       const group = bySignature.get(ruleSet.signature) ?? { ruleSet, members: [] };
-      group.members.push({ watch, mutes });
+      const checkedAtMs = watch.lastAlertCheckAtMs;
+      group.members.push({ watch, mutes, endedSinceCheck: checkedAtMs === null ? [] : endedMutes.filter((mute) => mute.untilMs > checkedAtMs) });
       bySignature.set(ruleSet.signature, group);
     });
 
@@ -325,7 +350,13 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       let queuedAtMs = nowMs;
       for (const found of foundInOrder) {
         report.crossingsFound += 1;
-        const recipients = members.filter(({ mutes }) => !isMuted(mutes, found.ruleId, locationKey)).map((m) => m.watch);
+        const listening = members.filter(({ mutes }) => !isMuted(mutes, found.ruleId, locationKey));
+        const recipients = listening.map((m) => m.watch);
+        // Not yet told what stands: a watch never checked, or one whose mute of this rule here has
+        // ended since its last check (alerts recorded meanwhile for other channels passed it by).
+        const owed = listening
+          .filter((m) => m.watch.lastAlertCheckAtMs === null || isMuted(m.endedSinceCheck, found.ruleId, locationKey))
+          .map((m) => m.watch);
         report.mutedSkips += members.length - recipients.length;
         // Nobody listening: record nothing, so the event can still be told when a mute ends.
         if (recipients.length === 0) continue;
@@ -336,7 +367,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
           report.endsNotAnnounced += 1;
           continue;
         }
-        await announce(found, crossing, recipients, assessment, queuedAtMs++, report);
+        await announce(found, crossing, recipients, owed, assessment, queuedAtMs++, report);
       }
     }
     lastSeenRunTime.set(locationKey, result.series.runTime);

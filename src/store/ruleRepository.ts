@@ -10,6 +10,20 @@ const thresholdSchema = z.number().finite();
 const hysteresisSchema = z.number().finite().nonnegative().nullable();
 
 export function createRuleRepository({ db }: StoreContext): RuleRepository {
+  async function mutesEndingAfter(channelRef: string, afterMs: number) {
+    parseInput(idSchema, channelRef, 'channel id');
+    parseInput(epochMsSchema, afterMs, 'afterMs');
+    const rows = await db
+      .selectFrom('mutes')
+      .selectAll()
+      .where('channel_ref', '=', channelRef)
+      .where('until_ms', '>', afterMs)
+      .orderBy('rule_id')
+      .orderBy('location_key')
+      .execute();
+    return rows.map(toMute);
+  }
+
   return {
     async setOverride(channelRef, ruleId, thresholdValue, hysteresisValue, nowMs) {
       parseInput(idSchema, channelRef, 'channel id');
@@ -82,17 +96,11 @@ export function createRuleRepository({ db }: StoreContext): RuleRepository {
     },
 
     async listActiveMutes(channelRef, nowMs) {
-      parseInput(idSchema, channelRef, 'channel id');
-      parseInput(epochMsSchema, nowMs, 'nowMs');
-      const rows = await db
-        .selectFrom('mutes')
-        .selectAll()
-        .where('channel_ref', '=', channelRef)
-        .where('until_ms', '>', nowMs)
-        .orderBy('rule_id')
-        .orderBy('location_key')
-        .execute();
-      return rows.map(toMute);
+      return mutesEndingAfter(channelRef, nowMs);
+    },
+
+    async listMutesEndingAfter(channelRef, afterMs) {
+      return mutesEndingAfter(channelRef, afterMs);
     },
 
     async isMuted(channelRef, ruleId, locationKey, nowMs) {

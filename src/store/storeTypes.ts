@@ -187,6 +187,8 @@ export interface RuleRepository {
   clearMute(channelRef: string, ruleId: string, locationKey: string): Promise<boolean>;
   /** Mutes still in force at `nowMs`. */
   listActiveMutes(channelRef: string, nowMs: number): Promise<Mute[]>;
+  /** Mutes that end after `afterMs`: those still in force, and those that ended since then. */
+  listMutesEndingAfter(channelRef: string, afterMs: number): Promise<Mute[]>;
   /** True when the rule is muted at this location (or everywhere) at `nowMs`. */
   isMuted(channelRef: string, ruleId: string, locationKey: string, nowMs: number): Promise<boolean>;
 }

@@ -120,6 +120,38 @@ describe('alert-check cycle', () => {
     expect(source.requests()).toBe(3);
   });
 
+  it('a channel whose mute ends is told the muted rule\'s warnings that stand, once', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
+    const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
+    await store.rules.setMute(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 6 * 3600_000, MORNING);
+    const source = countingDemoSource();
+    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const headline = (rows: Array<{ dedupeKey: string; target: string }>, target: string) =>
+      rows.filter((row) => row.target === target && row.dedupeKey.includes('|mixing-reaches-dry-layer|')).map((row) => row.dedupeKey.split('|').slice(1, 5).join('|'));
+
+    await cycle.run(MORNING);
+    const first = await allOutbox(store);
+    expect(headline(first, 'slack:C0AAA').length).toBeGreaterThan(0);
+    expect(headline(first, 'slack:C0BBB')).toEqual([]);
+    // Still muted at the next check: nothing.
+    await cycle.run(MORNING + 40 * 60_000);
+    expect(headline(await allOutbox(store), 'slack:C0BBB')).toEqual([]);
+
+    // The first check after the mute ends: B hears the headline crossings that are still ahead.
+    const after = await cycle.run(MORNING + 6 * 3600_000 + 30 * 60_000);
+    expect(after.toldStanding).toBeGreaterThan(0);
+    const queued = await allOutbox(store);
+    const toB = headline(queued, 'slack:C0BBB');
+    expect(toB.length).toBeGreaterThan(0);
+    for (const key of toB) expect(headline(first, 'slack:C0AAA')).toContain(key);
+    // A heard them already; and the next check tells B nothing twice (a crossing newly inside the
+    // 48 hours may come, to both).
+    expect(headline(queued, 'slack:C0AAA').filter((key) => headline(first, 'slack:C0AAA').includes(key))).toEqual([]);
+    await cycle.run(MORNING + 7 * 3600_000 + 10 * 60_000);
+    expect(headline(await allOutbox(store), 'slack:C0BBB').filter((key) => toB.includes(key))).toEqual([]);
+  });
+
   it('a newer model run makes a place due before the interval', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [ALDER_SINK], MORNING);
     const source = countingDemoSource();

@@ -38,6 +38,10 @@ describeEachBackend('rule overrides and mutes', (h) => {
     expect(await store.rules.isMuted(channel.id, 'hdw-high', there, 5_000)).toBe(true);
     expect((await store.rules.listActiveMutes(channel.id, 5_000)).map((m) => m.ruleId)).toEqual(['coupling', 'hdw-high']);
     expect((await store.rules.listActiveMutes(channel.id, 15_000)).map((m) => m.ruleId)).toEqual(['hdw-high']);
+    // Ended mutes stay listed for the alert check that follows (it tells what they held back).
+    expect((await store.rules.listMutesEndingAfter(channel.id, 9_000)).map((m) => [m.ruleId, m.untilMs])).toEqual([['coupling', 10_000], ['hdw-high', 20_000]]);
+    expect((await store.rules.listMutesEndingAfter(channel.id, 10_000)).map((m) => m.ruleId)).toEqual(['hdw-high']);
+    await expect(store.rules.listMutesEndingAfter(channel.id, -1)).rejects.toThrow(/afterMs/);
 
     // A second mute of the same rule and place replaces the first.
     await store.rules.setMute(channel.id, 'coupling', here, 50_000, 2_000);
