@@ -253,9 +253,10 @@ export interface AlertHistoryRepository {
    */
   recordCrossingUpdate(crossing: Crossing, expectedRevision: number, messages: OutgoingMessage[], nowMs: number): Promise<RecordUpdateResult>;
   /**
-   * A crossing already recorded, told to channels that start watching after it was announced: one
-   * outbox row per message at the stored revision, in one transaction; a row whose dedupe key is
-   * present (that channel was sent that revision) is skipped. 'stale' when no such crossing is recorded.
+   * A crossing already recorded, told to channels that did not hear it when it was announced (they
+   * started watching later, or had the rule muted): one outbox row per message at the stored
+   * revision, in one transaction; a row whose dedupe key is present (that channel was sent that
+   * revision) is skipped. 'stale' when no such crossing is recorded.
    */
   queueRecordedCrossing(crossing: Crossing, messages: OutgoingMessage[], nowMs: number): Promise<RecordUpdateResult>;
 }
