@@ -25,6 +25,7 @@ import type { Logger } from 'pino';
 import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastWindow } from '../forecast/forecastSource.ts';
 import type { Message } from '../render/message.ts';
 import type { AlertRecord, Channel, Crossing, Mute, OutgoingMessage, Store, WatchWithChannel } from '../store/storeTypes.ts';
+import { channelTargetKey } from '../store/storeKeys.ts';
 import { ALL_LOCATIONS } from '../store/storeTypes.ts';
 import type { Rule, RuleId } from '../watch/rules/rule.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
@@ -35,6 +36,7 @@ import { isMaterialUpdate } from '../watch/crossings/isMaterialUpdate.ts';
 import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
 import { watchLocation } from './watchLocation.ts';
 import { buildAlertMessage, formatAlertValue, type AlertContent, type AlertValueKind } from '../render/alertMessage.ts';
+import { buildAlertDigestMessage } from '../render/alertDigestMessage.ts';
 import { messageToPayload } from '../delivery/outboxPayload.ts';
 import { dueAlertChecks, groupWatchesByLocation, type DueAlertCheck } from './alertCheckDue.ts';
 import { mapWithConcurrency } from './mapWithConcurrency.ts';
@@ -62,6 +64,8 @@ export interface AlertCheckDeps {
   findCrossings(current: SeriesAssessment, rules: readonly Rule[], previous?: SeriesAssessment): WatchCrossing[];
   isMaterialUpdate(previous: WatchCrossing, next: WatchCrossing): boolean;
   renderAlert(input: AlertRenderInput): Message;
+  /** Several alerts of one place for one channel, in forecast order, as one message (a first check). */
+  renderDigest(inputs: AlertRenderInput[]): Message;
   /** The newest model run the source knows of, when it can say without a full fetch. */
   latestRunTime?(): Promise<string | null>;
 }
@@ -148,6 +152,10 @@ export function realAlertCheckDeps(options: {
       buildAlertMessage(alertContentOf(input), input.channel.unitSystem, {
         ...(options.footerLocalLine !== undefined ? { footerLocalLine: options.footerLocalLine } : {}),
       }),
+    renderDigest: (inputs) =>
+      buildAlertDigestMessage(inputs.map(alertContentOf), inputs[0]!.channel.unitSystem, {
+        ...(options.footerLocalLine !== undefined ? { footerLocalLine: options.footerLocalLine } : {}),
+      }),
     ...(options.latestRunTime ? { latestRunTime: options.latestRunTime } : {}),
   };
 }
@@ -172,7 +180,7 @@ function announcedAsWatchCrossing(record: AlertRecord, next: WatchCrossing): Wat
 }
 
 export interface AlertCheckCycleOptions {
-  store: Pick<Store, 'watches' | 'rules' | 'alerts' | 'jobs'>;
+  store: Pick<Store, 'watches' | 'rules' | 'alerts' | 'jobs' | 'outbox'>;
   deps: AlertCheckDeps;
   workerId: string;
   logger: Logger;
@@ -198,6 +206,8 @@ export interface AlertCheckReport {
   duplicates: number;
   /** Crossings already announced, told to channels that had not heard them (a new watch, a mute that ended). */
   toldStanding: number;
+  /** Channels told a first check's alerts in one message (see `tellFirstCheck`). */
+  digestsQueued: number;
   messagesQueued: number;
   mutedSkips: number;
   /** Ends of events never announced as onsets on the same local day: not told. */
@@ -212,7 +222,7 @@ export interface AlertCheckCycle {
 function emptyReport(): AlertCheckReport {
   return {
     placesWatched: 0, placesDue: 0, placesChecked: 0, jobsBusyOrDone: 0, forecastRequests: 0, forecastFailures: 0,
-    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, toldStanding: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
+    crossingsFound: 0, crossingsRecorded: 0, updatesRecorded: 0, duplicates: 0, toldStanding: 0, digestsQueued: 0, messagesQueued: 0, mutedSkips: 0, endsNotAnnounced: 0, errors: 0,
   };
 }
 
@@ -312,6 +322,35 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     }
   }
 
+  /**
+   * A watch's first check: the alerts that stand for the place (recorded now or before), told to
+   * its channel. One alert goes as itself (keyed per crossing and channel, as any alert); several go
+   * as one digest, so that starting to watch does not bury the channel under a dozen posts. The
+   * digest's key names the check's job: a re-run of the same job after a crash queues it once.
+   */
+  async function tellFirstCheck(
+    check: DueAlertCheck,
+    watch: WatchWithChannel,
+    alerts: Array<{ found: WatchCrossing; crossing: Crossing }>,
+    assessment: SeriesAssessment,
+    nowMs: number,
+    report: AlertCheckReport,
+  ): Promise<void> {
+    const target = { platform: watch.channel.platform, teamId: watch.channel.teamId, channelId: watch.channel.channelId };
+    const inputs = alerts.map(({ found, crossing }) => ({ crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision: 0 }));
+    if (alerts.length === 1) {
+      const told = await store.alerts.queueRecordedCrossing(alerts[0]!.crossing, [{ target, payload: messageToPayload(deps.renderAlert(inputs[0]!)) }], nowMs);
+      if (told.status === 'recorded') report.messagesQueued += told.outboxIds.length;
+      return;
+    }
+    const queued = await store.outbox.enqueue(
+      [{ dedupeKey: `alert-digest|${check.jobKey}|${channelTargetKey(target)}`, kind: 'alert', target, payload: messageToPayload(deps.renderDigest(inputs)) }],
+      nowMs,
+    );
+    report.digestsQueued += queued.insertedIds.length;
+    report.messagesQueued += queued.insertedIds.length;
+  }
+
   async function checkPlace(check: DueAlertCheck, nowMs: number, report: AlertCheckReport): Promise<void> {
     const { locationKey, watches } = check;
     report.forecastRequests += 1;
@@ -326,6 +365,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     retryNotBeforeMs.delete(locationKey);
     const assessment = deps.assess(result.series);
     const previous = lastAssessment.get(locationKey);
+    const firstCheckAlerts = new Map<string, { watch: WatchWithChannel; alerts: Array<{ found: WatchCrossing; crossing: Crossing }> }>();
     const channelCache = new Map<string, Promise<ChannelContext>>();
     const contexts = await Promise.all(watches.map((w) => channelContext(w.channelRef, nowMs, channelCache)));
 
@@ -339,26 +379,20 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       bySignature.set(ruleSet.signature, group);
     });
 
+    // A channel reads its alerts in forecast order, the most severe first within an hour; each is
+    // queued a millisecond after the one before, so the outbox (oldest due first) keeps that order.
+    let queuedAtMs = nowMs;
     for (const { ruleSet, members } of bySignature.values()) {
       const enabled = ruleSet.rules.filter((r) => r.enabled);
       // The previous run's assessment (same place, older run) lets the watch report worsenings.
       const earlier = previous && previous.runTime !== assessment.runTime ? previous : undefined;
-      // A channel reads its alerts in forecast order, the most severe first within an hour; each is
-      // queued a millisecond after the one before, so the outbox (oldest due first) keeps that order.
       const foundInOrder = [...deps.findCrossings(assessment, enabled, earlier)].sort(byForecastOrder);
-      let queuedAtMs = nowMs;
       for (const found of foundInOrder) {
         report.crossingsFound += 1;
         const listening = members.filter(({ mutes }) => !isMuted(mutes, found.ruleId, locationKey));
-        const recipients = listening.map((m) => m.watch);
-        // Not yet told what stands: a watch never checked, or one whose mute of this rule here has
-        // ended since its last check (alerts recorded meanwhile for other channels passed it by).
-        const owed = listening
-          .filter((m) => m.watch.lastAlertCheckAtMs === null || isMuted(m.endedSinceCheck, found.ruleId, locationKey))
-          .map((m) => m.watch);
-        report.mutedSkips += members.length - recipients.length;
+        report.mutedSkips += members.length - listening.length;
         // Nobody listening: record nothing, so the event can still be told when a mute ends.
-        if (recipients.length === 0) continue;
+        if (listening.length === 0) continue;
         const crossing = storeCrossingOf(found, locationKey, ruleSet.crossingRuleKey.get(found.ruleId) ?? found.ruleId);
         // Ends are not pushed: "the dry air has gone" read in a channel is an all-clear, and an
         // all-clear is the forecaster's call. Lookups and the morning summary show when a rule eases.
@@ -366,8 +400,23 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
           report.endsNotAnnounced += 1;
           continue;
         }
-        await announce(found, crossing, recipients, owed, assessment, queuedAtMs++, report);
+        // A watch's first check: everything that stands goes to it in one message, after the loop.
+        const firstCheck = listening.filter((m) => m.watch.lastAlertCheckAtMs === null);
+        for (const member of firstCheck) {
+          const pending = firstCheckAlerts.get(member.watch.id) ?? { watch: member.watch, alerts: [] };
+          pending.alerts.push({ found, crossing });
+          firstCheckAlerts.set(member.watch.id, pending);
+        }
+        const checkedBefore = listening.filter((m) => m.watch.lastAlertCheckAtMs !== null);
+        // Checked before and not yet told what stands: its mute of this rule here ended since its
+        // last check (alerts recorded meanwhile for other channels passed it by).
+        const owed = checkedBefore.filter((m) => isMuted(m.endedSinceCheck, found.ruleId, locationKey)).map((m) => m.watch);
+        // Recorded even when only first checks listen, so that a later check knows it was told.
+        await announce(found, crossing, checkedBefore.map((m) => m.watch), owed, assessment, queuedAtMs++, report);
       }
+    }
+    for (const { watch, alerts } of firstCheckAlerts.values()) {
+      await tellFirstCheck(check, watch, alerts.sort((a, b) => byForecastOrder(a.found, b.found)), assessment, queuedAtMs++, report);
     }
     lastSeenRunTime.set(locationKey, result.series.runTime);
     lastAssessment.set(locationKey, assessment);

@@ -52,19 +52,23 @@ describe('npm start with no credentials: the terminal on the invented demo', { t
     expect(stdout).toMatch(/"morning": "31:00" is not a time of day/);
   });
 
-  it('on a fast scenario clock, a watched demo place gets its coupling alert and then the 06:30 morning summary', async () => {
+  it('on a fast scenario clock, a watched demo place gets its alerts (the coupling among them) and then the 06:30 morning summary', async () => {
     // 05:00 MDT on an invented August morning, ten scenario minutes per real second.
     const { code, stdout } = await runStart('watch Kestrel Bench ICP\npause 15\n', {
       LAPSEWATCH_CLOCK_START: '2026-08-14T11:00:00Z',
       LAPSEWATCH_CLOCK_SPEED: '600',
     });
     expect(code).toBe(0);
-    const alertAt = stdout.indexOf('Mixed layer reaches a dry layer aloft: Kestrel Bench ICP, Fri 14 Aug 15:00');
+    // The first check's alerts come in one message; the coupling this afternoon is among them.
+    const alertAt = stdout.search(/Kestrel Bench ICP: \d+ alerts stand in the forecast/);
+    const couplingLine = 'Fri 14 Aug 15:00 MDT · Mixed layer reaches a dry layer aloft';
     const summaryAt = stdout.indexOf('Morning summary: Kestrel Bench ICP, Fri 14 Aug');
     expect(alertAt).toBeGreaterThan(0);
+    expect(stdout.indexOf(couplingLine)).toBeGreaterThan(alertAt);
     expect(summaryAt).toBeGreaterThan(alertAt);
     // Each alert and summary is posted once.
-    expect(stdout.split('Mixed layer reaches a dry layer aloft: Kestrel Bench ICP, Fri 14 Aug 15:00').length - 1).toBe(1);
+    expect(stdout.split(couplingLine).length - 1).toBe(1);
+    expect(stdout.split('stand in the forecast').length - 1).toBe(1);
     expect(stdout.split('Morning summary: Kestrel Bench ICP, Fri 14 Aug').length - 1).toBe(1);
   });
 

@@ -6,12 +6,21 @@ import { channelRuleSet } from '../../src/schedule/ruleSet.ts';
 import { payloadToMessage } from '../../src/delivery/outboxPayload.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
 import { locationKeyOf } from '../../src/store/storeKeys.ts';
+import type { Message } from '../../src/render/message.ts';
 import type { Store } from '../../src/store/storeTypes.ts';
 import { capturingLogger, openTempSqliteStore, slackTarget, discordTarget } from '../delivery/deliveryFixtures.ts';
 import { ALDER_SINK, KESTREL_BENCH, channelWatching, countingDemoSource, shippedRules } from './scheduleFixtures.ts';
 
 // 08:00 MDT on an invented July morning: the demo's first afternoon is ahead.
 const MORNING = Date.UTC(2031, 6, 14, 14, 0, 0);
+
+const HEADLINE_NAME = 'Mixed layer reaches a dry layer aloft';
+
+function messageOf(row: { payload: unknown }): Message {
+  const decoded = payloadToMessage(row.payload);
+  if (!decoded.ok) throw new Error('an outbox payload did not decode');
+  return decoded.message;
+}
 
 async function allOutbox(store: Store): Promise<Array<{ dedupeKey: string; target: string; payload: unknown }>> {
   const rows = await store.outbox.claimDueOutbox('inspector', 10_000, 1, MORNING + 10 * 86_400_000);
@@ -27,8 +36,8 @@ describe('alert-check cycle', () => {
     await store.close();
   });
 
-  it('fetches each place once however many channels watch it, and queues one alert per channel', async () => {
-    const a = await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+  it('fetches each place once however many channels watch it, and tells each new watch once, in one message', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
     await channelWatching(store, discordTarget('1300000000000000001'), [KESTREL_BENCH, ALDER_SINK], MORNING);
     // Channel B mutes the headline rule at Kestrel Bench.
@@ -40,43 +49,75 @@ describe('alert-check cycle', () => {
     const replicas = ['replica-1', 'replica-2'].map((workerId) => createAlertCheckCycle({ store, deps, workerId, logger: capturingLogger().logger }));
     const [r1, r2] = await Promise.all(replicas.map((cycle) => cycle.run(MORNING)));
 
-    expect(source.requests()).toBe(2); // two places, two replicas, four channels: two requests
+    expect(source.requests()).toBe(2); // two places, two replicas, four watches: two requests
     expect(r1!.placesChecked + r2!.placesChecked).toBe(2);
+    expect(r1!.crossingsRecorded + r2!.crossingsRecorded).toBeGreaterThan(4);
     const rows = await allOutbox(store);
-    const headline = rows.filter((r) => r.dedupeKey.includes('|mixing-reaches-dry-layer|') && r.dedupeKey.includes('|up|'));
-    const kestrelHeadline = headline.filter((r) => r.dedupeKey.includes(kestrelKey));
-    // A and the Discord channel get the Kestrel Bench coupling alerts (one per scenario day); B muted it.
-    const perTarget = new Map<string, number>();
-    for (const r of kestrelHeadline) perTarget.set(r.target, (perTarget.get(r.target) ?? 0) + 1);
-    expect([...perTarget.keys()].sort()).toEqual(['discord:1300000000000000001', 'slack:C0AAA']);
-    expect(perTarget.get('slack:C0AAA')).toBeGreaterThanOrEqual(1);
-    expect(perTarget.get('slack:C0AAA')).toBe(perTarget.get('discord:1300000000000000001'));
-    expect(new Set(rows.map((r) => r.dedupeKey)).size).toBe(rows.length);
+    // Every watch is new: one digest each (the Discord channel watches two places), nothing else.
+    expect(rows.map((row) => row.target).sort()).toEqual(['discord:1300000000000000001', 'discord:1300000000000000001', 'slack:C0AAA', 'slack:C0BBB']);
+    expect(new Set(rows.map((row) => row.dedupeKey)).size).toBe(rows.length);
     for (const row of rows) {
-      const decoded = payloadToMessage(row.payload);
-      expect(decoded.ok).toBe(true);
-      if (decoded.ok) expect(decoded.message.footer.startsWith(SAFETY_FOOTER)).toBe(true);
+      expect(row.dedupeKey.startsWith('alert-digest|')).toBe(true);
+      const message = messageOf(row);
+      expect(message.footer.startsWith(SAFETY_FOOTER)).toBe(true);
+      expect(message.title).toMatch(/: \d+ alerts stand in the forecast$/);
     }
-    expect(a.id).not.toBe(b.id);
+    const kestrel = (target: string) => messageOf(rows.find((row) => row.target === target && row.dedupeKey.includes(kestrelKey))!);
+    // Same forecast, same units: A and the Discord channel read the same lines; B's lack the muted rule.
+    expect(kestrel('slack:C0AAA').sections[0]!.lines).toEqual(kestrel('discord:1300000000000000001').sections[0]!.lines);
+    expect(kestrel('slack:C0AAA').sections[0]!.lines.join('\n')).toContain(HEADLINE_NAME);
+    expect(kestrel('slack:C0BBB').sections[0]!.lines.join('\n')).not.toContain(HEADLINE_NAME);
   });
 
   it('queues the alerts of a place in forecast order, and never pushes the end of a rule', async () => {
+    // A watch checked before gets each new crossing as an alert of its own; a new one, the digest.
     await channelWatching(store, slackTarget('C0ORD'), [KESTREL_BENCH], MORNING);
+    const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
+    await store.watches.markAlertChecked(kestrelKey, MORNING - 3600_000);
+    await channelWatching(store, slackTarget('C0NEW'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
     const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
     const report = await cycle.run(MORNING);
     const rows = await store.outbox.claimDueOutbox('inspector', 10_000, 1, MORNING + 10 * 86_400_000);
-    expect(rows.length).toBeGreaterThan(2);
+    const ordered = rows.filter((row) => row.target.channelId === 'C0ORD');
+    expect(ordered.length).toBeGreaterThan(2);
     expect(rows.some((row) => row.dedupeKey.includes('|down|'))).toBe(false);
     expect(report.endsNotAnnounced).toBeGreaterThan(0);
     // Claimed oldest-due first: that must be the order of the forecast hours the alerts are about.
-    const validTimes = rows.map((row) => (payloadToMessage(row.payload) as { ok: true; message: { title: string } }).message.title);
-    const crossingTimes = await Promise.all(rows.map(async (row) => {
+    const validTimes = ordered.map((row) => (payloadToMessage(row.payload) as { ok: true; message: { title: string } }).message.title);
+    const crossingTimes = await Promise.all(ordered.map(async (row) => {
       const [locationKey, ruleId, validLocalDay] = row.dedupeKey.split('|').slice(1, 4);
       return (await store.alerts.findCrossing({ locationKey: locationKey!, ruleId: ruleId!, validLocalDay: validLocalDay!, direction: 'up' }))!.validTime;
     }));
     const sorted = [...crossingTimes].sort((a, b) => Date.parse(a) - Date.parse(b));
     expect(crossingTimes, validTimes.join('\n')).toEqual(sorted);
+    // The digest lists the same alerts in the same order (as many as it shows).
+    const digest = messageOf({ payload: rows.find((row) => row.target.channelId === 'C0NEW')!.payload });
+    const digestRules = digest.sections[0]!.lines.filter((line) => line.includes(' · ')).map((line) => line.split(' · ')[1]!.split(':')[0]);
+    const alertRules = validTimes.map((title) => title.split(':')[0]);
+    expect(digestRules).toEqual(alertRules.slice(0, digestRules.length));
+    expect(digest.title).toBe(`Kestrel Bench ICP: ${ordered.length} alerts stand in the forecast`);
+  });
+
+  it('a first check that fails after queuing its digest is run again without a second digest', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    // The real store, but the first "mark checked" fails, as if the process died at that point.
+    let failures = 1;
+    const watches = Object.create(store.watches) as Store['watches'];
+    watches.markAlertChecked = async (...args) => {
+      if (failures-- > 0) throw new Error('injected: the store went away');
+      return store.watches.markAlertChecked(...args);
+    };
+    const cycle = createAlertCheckCycle({ store: { ...store, watches }, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const failed = await cycle.run(MORNING);
+    expect(failed.errors).toBe(1);
+    expect(failed.digestsQueued).toBe(1);
+    const again = await cycle.run(MORNING + 60_000);
+    expect(again.placesChecked).toBe(1);
+    expect(again.digestsQueued).toBe(0);
+    expect(await allOutbox(store)).toHaveLength(1);
+    expect((await cycle.run(MORNING + 2 * 60_000)).placesDue).toBe(0);
   });
 
   it('checks again only after the interval, and an unchanged forecast queues nothing new', async () => {
@@ -93,13 +134,14 @@ describe('alert-check cycle', () => {
     expect(again.messagesQueued).toBe(0);
   });
 
-  it('a channel that starts watching a place others watch is checked at the next tick, and told what they were told', async () => {
+  it('a channel that starts watching a place others watch is checked at the next tick, and told what stands', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
     const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
     const first = await cycle.run(MORNING);
     expect(first.crossingsRecorded).toBeGreaterThan(0);
-    const announcedToA = (await allOutbox(store)).filter((row) => row.target === 'slack:C0AAA').map((row) => row.dedupeKey.split('|').slice(1, 5).join('|'));
+    const toA = await allOutbox(store);
+    expect(toA).toHaveLength(1);
 
     // B joins after the place was checked: its watch is new, the place's crossings are not.
     await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING + 60_000);
@@ -108,9 +150,9 @@ describe('alert-check cycle', () => {
     expect(joined.crossingsRecorded).toBe(0);
     // (allOutbox claims what it reads: these are the rows queued since.)
     const queuedSince = await allOutbox(store);
-    // The same warnings, once each, to B only: A hears nothing twice.
-    expect(new Set(queuedSince.map((row) => row.target))).toEqual(new Set(['slack:C0BBB']));
-    expect(queuedSince.map((row) => row.dedupeKey.split('|').slice(1, 5).join('|')).sort()).toEqual([...announcedToA].sort());
+    // The same alerts, in one message, to B only: A hears nothing twice.
+    expect(queuedSince.map((row) => row.target)).toEqual(['slack:C0BBB']);
+    expect(messageOf(queuedSince[0]!).sections[0]!.lines).toEqual(messageOf(toA[0]!).sections[0]!.lines);
 
     // Checked: not due again before the interval, due after it, and nothing is repeated.
     expect((await cycle.run(MORNING + 10 * 60_000)).placesDue).toBe(0);
@@ -120,7 +162,7 @@ describe('alert-check cycle', () => {
     expect(source.requests()).toBe(3);
   });
 
-  it('a channel whose mute ends is told the muted rule\'s warnings that stand, once', async () => {
+  it('a channel whose mute ends is told the muted rule\'s alerts that stand, once', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
     const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
@@ -132,22 +174,29 @@ describe('alert-check cycle', () => {
 
     await cycle.run(MORNING);
     const first = await allOutbox(store);
-    expect(headline(first, 'slack:C0AAA').length).toBeGreaterThan(0);
-    expect(headline(first, 'slack:C0BBB')).toEqual([]);
+    expect(messageOf(first.find((row) => row.target === 'slack:C0AAA')!).sections[0]!.lines.join('\n')).toContain(HEADLINE_NAME);
+    expect(messageOf(first.find((row) => row.target === 'slack:C0BBB')!).sections[0]!.lines.join('\n')).not.toContain(HEADLINE_NAME);
     // Still muted at the next check: nothing.
     await cycle.run(MORNING + 40 * 60_000);
     expect(headline(await allOutbox(store), 'slack:C0BBB')).toEqual([]);
 
-    // The first check after the mute ends: B hears the headline crossings that are still ahead.
+    // The first check after the mute ends: B hears the headline crossings that are still ahead,
+    // each announced to A at the first check.
     const after = await cycle.run(MORNING + 6 * 3600_000 + 30 * 60_000);
     expect(after.toldStanding).toBeGreaterThan(0);
     const queued = await allOutbox(store);
     const toB = headline(queued, 'slack:C0BBB');
     expect(toB.length).toBeGreaterThan(0);
-    for (const key of toB) expect(headline(first, 'slack:C0AAA')).toContain(key);
+    for (const key of toB) {
+      const [locationKey, ruleId, validLocalDay, direction] = key.split('|');
+      const record = await store.alerts.findCrossing({ locationKey: locationKey!, ruleId: ruleId!, validLocalDay: validLocalDay!, direction: direction as 'up' });
+      // (Each alert of a check is queued a millisecond after the one before.)
+      expect(record!.firstAnnouncedAtMs - MORNING).toBeGreaterThanOrEqual(0);
+      expect(record!.firstAnnouncedAtMs - MORNING).toBeLessThan(1_000);
+    }
     // A heard them already; and the next check tells B nothing twice (a crossing newly inside the
     // 48 hours may come, to both).
-    expect(headline(queued, 'slack:C0AAA').filter((key) => headline(first, 'slack:C0AAA').includes(key))).toEqual([]);
+    expect(headline(queued, 'slack:C0AAA').filter((key) => toB.includes(key))).toEqual([]);
     await cycle.run(MORNING + 7 * 3600_000 + 10 * 60_000);
     expect(headline(await allOutbox(store), 'slack:C0BBB').filter((key) => toB.includes(key))).toEqual([]);
   });

@@ -17,7 +17,7 @@ export async function startWatching(context: HandlerContext, ref: PlaceRef): Pro
   const summary = context.channel.summaryLocalTime ? `Morning summary at ${context.channel.summaryLocalTime} local time.` : 'Morning summary is off (`morning 06:30` turns it on).';
   return noticeMessage(
     created ? `Watching ${place.displayName}: alerts on.` : `Already watching ${place.displayName}; alerts stay on.`,
-    [`Checked every half hour and after each new model run. ${summary}`, `Stop with \`unwatch ${place.savedName ?? `${place.latitudeDeg},${place.longitudeDeg}`}\`.`],
+    [`The alerts that stand come in one message at the next check; after that, each new one on its own. Checked every half hour and after each new model run. ${summary}`, `Stop with \`unwatch ${place.savedName ?? `${place.latitudeDeg},${place.longitudeDeg}`}\`.`],
     context.localFooterLine,
   );
 }
