@@ -11,9 +11,9 @@
  *  4. for each crossing, the channels that have not muted that rule there get one message each,
  *     written with the crossing record in one transaction (`recordCrossingWithOutbox`); a crossing
  *     already announced is re-announced only when `deps.isMaterialUpdate` says so
- *     (`recordCrossingUpdate`), and told as it stands (`queueRecordedCrossing`) to channels
- *     that had not heard it: a new watch, or a mute of the rule that ended since the last check;
- *     so a channel that joins late, or snoozed a rule, hears the warnings that stand;
+ *     (`recordCrossingUpdate`), and told as it stands (`queueRecordedCrossing`) to a channel whose
+ *     mute of the rule there ended since the last check; a watch's first check (a channel that
+ *     joins late included) gets all that stand in one message (`tellFirstCheck`);
  *  5. mark the watches it saw checked and complete the job.
  * A replica that dies mid-job leaves the job to another once its lease (60 s) runs out; rows it
  * wrote are whole transactions, so a re-run finds them and writes nothing twice.
@@ -204,7 +204,7 @@ export interface AlertCheckReport {
   crossingsRecorded: number;
   updatesRecorded: number;
   duplicates: number;
-  /** Crossings already announced, told to channels that had not heard them (a new watch, a mute that ended). */
+  /** Crossings already announced, told to channels that had not heard them (a mute of the rule ended). */
   toldStanding: number;
   /** Channels told a first check's alerts in one message (see `tellFirstCheck`). */
   digestsQueued: number;
