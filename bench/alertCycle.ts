@@ -1,6 +1,7 @@
 /**
  * One alert-check cycle at scale: 1,000 channels (half Slack, half Discord) watching 200 invented
- * places, five channels a place, on the embedded SQLite store. Three processes, so that each figure
+ * places, five channels a place, on the embedded SQLite store; the watches were checked an hour
+ * before, so every crossing goes to every channel as an alert of its own. Three processes, so that each figure
  * belongs to one of them:
  *  - this one seeds the store (channels and watches, untimed) and prints;
  *  - the stand-ins (standInsProcess.ts): the Open-Meteo stand-in on 127.0.0.1 with 50 ms of latency
@@ -21,6 +22,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { compiledBuildIsCurrent } from '../bin/compiledBuild.mjs';
 import { BOT_ENVIRONMENT } from '../src/app/botRuntime.ts';
 import type { AlertCheckReport } from '../src/schedule/alertCheckCycle.ts';
+import { locationKeyOf } from '../src/store/storeKeys.ts';
 import { openTempSqliteStore } from '../test/delivery/deliveryFixtures.ts';
 import { standInApplicationId } from '../test/adapters/discordStandIn.ts';
 import { botNodeFlagsForBench, startChild } from './childLink.ts';
@@ -112,6 +114,11 @@ export async function runAlertCycleBench(): Promise<void> {
       );
       const place = places[i % PLACES]!;
       await store.watches.addWatch(channel.id, { placeName: place.name, latitudeDeg: place.latitudeDeg, longitudeDeg: place.longitudeDeg, createdBy: 'U0BENCH' }, nowMs);
+    }
+    // Established watches, last checked an hour ago: the cycle tells each crossing to each channel on
+    // its own (the heavy case). A watch's first check would send one digest per channel instead.
+    for (const place of places) {
+      await store.watches.markAlertChecked(locationKeyOf(place.latitudeDeg, place.longitudeDeg), nowMs - 3_600_000);
     }
     await store.close();
     const seedSeconds = (performance.now() - seedStartedAtMs) / 1000;
