@@ -9,7 +9,25 @@ import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
 import { collectGarbage } from './collectGarbage.ts';
 import type { RasterReply, RasterRequest } from './rasterMessages.ts';
 
-function draw(request: RasterRequest): void {
+/**
+ * resvg-js 2.6 keeps each picture's parsed tree and pixels (about 1 MB for a chart) in native
+ * memory that it does not report to V8, and frees them only when V8 collects the small JS objects
+ * that hold them (thx/resvg-js issue 216). This thread allocates so little JS that V8 never
+ * collected: rss grew by about 1.5 MB per picture without bound (46 MB over 30 pictures, measured
+ * with a scratch script). So once the pictures in hand have gone out, the thread collects. Native
+ * finalisers run on a later turn, which is why the collection runs after the reply, not inside it.
+ */
+let collectionDue = false;
+function collectWhenIdle(): void {
+  if (collectionDue) return;
+  collectionDue = true;
+  setImmediate(() => {
+    collectionDue = false;
+    collectGarbage();
+  });
+}
+
+parentPort!.on('message', (request: RasterRequest) => {
   let reply: RasterReply;
   try {
     const rendered = new Resvg(request.svg, request.options as ResvgRenderOptions).render();
@@ -21,36 +39,5 @@ function draw(request: RasterRequest): void {
     reply = { id: request.id, ok: false, reason: error instanceof Error ? error.message : String(error) };
     parentPort!.postMessage(reply);
   }
-}
-
-/**
- * resvg-js 2.6 keeps each picture's parsed tree and pixels (about 1 MB for a chart) in native
- * memory that it does not report to V8, and frees them only when V8 collects the small JS objects
- * that hold them (thx/resvg-js issue 216). This thread allocates so little JS that V8 never
- * collected: rss grew by about 1.5 MB per picture without bound (46 MB over 30 pictures, measured
- * with a scratch script). So after each picture the thread collects, and draws the next only on a
- * later turn: the native memory is freed by finalisers that run on the turn after a collection.
- * Requests that arrive meanwhile wait in `waiting`, in order.
- */
-const waiting: RasterRequest[] = [];
-let drawing = false;
-
-function drawNext(): void {
-  const request = waiting.shift();
-  if (!request) {
-    drawing = false;
-    return;
-  }
-  draw(request);
-  setImmediate(() => {
-    collectGarbage();
-    setImmediate(drawNext);
-  });
-}
-
-parentPort!.on('message', (request: RasterRequest) => {
-  waiting.push(request);
-  if (drawing) return;
-  drawing = true;
-  drawNext();
+  collectWhenIdle();
 });
