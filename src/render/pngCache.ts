@@ -1,11 +1,5 @@
 import { createHash } from 'node:crypto';
-
-/** A finished picture. */
-export interface CachedPng {
-  png: Uint8Array;
-  widthPx: number;
-  heightPx: number;
-}
+import type { DrawnPng } from './drawPng.ts';
 
 export interface PngCacheLimits {
   /** Most pictures held. */
@@ -29,7 +23,7 @@ export interface PngCacheStats {
 export class PngCache {
   readonly stats: PngCacheStats = { hits: 0, misses: 0, evictions: 0 };
   // A Map keeps insertion order: re-inserting on use makes its first key the least recently used.
-  private readonly entries = new Map<string, CachedPng>();
+  private readonly entries = new Map<string, DrawnPng>();
   private heldBytes = 0;
 
   constructor(private readonly limits: PngCacheLimits) {
@@ -42,7 +36,7 @@ export class PngCache {
   }
 
   /** The picture under `key`, as a copy (a caller that scribbles on its bytes cannot spoil the next answer). */
-  get(key: string): CachedPng | undefined {
+  get(key: string): DrawnPng | undefined {
     const entry = this.entries.get(key);
     if (!entry) {
       this.stats.misses += 1;
@@ -60,7 +54,7 @@ export class PngCache {
   }
 
   /** Keeps a copy of the picture; one larger than the whole byte bound is not kept. */
-  set(key: string, picture: CachedPng): void {
+  set(key: string, picture: DrawnPng): void {
     this.remove(key);
     if (picture.png.byteLength > this.limits.maxBytes) return;
     this.entries.set(key, { ...picture, png: picture.png.slice() });

@@ -1,3 +1,5 @@
+import type { PngResult } from './drawPng.ts';
+
 /** What the answering thread and the picture thread (rasterWorker.ts) say to each other. */
 export interface RasterRequest {
   id: number;
@@ -6,4 +8,4 @@ export interface RasterRequest {
   options: unknown;
 }
 
-export type RasterReply = { id: number; ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { id: number; ok: false; reason: string };
+export type RasterReply = { id: number } & PngResult;

@@ -7,16 +7,15 @@
  */
 import type { Worker } from 'node:worker_threads';
 import { startModuleWorker } from '../threads/moduleWorker.ts';
+import type { PngResult } from './drawPng.ts';
 import type { RasterReply } from './rasterMessages.ts';
 
 /** How long the thread stays after its last picture (an incident channel asks in bursts). */
 const IDLE_MS = 5 * 60_000;
 
-export type RasterOutcome = { ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { ok: false; reason: string };
-
 let worker: Worker | null = null;
 let nextId = 1;
-const owed = new Map<number, (outcome: RasterOutcome) => void>();
+const owed = new Map<number, (outcome: PngResult) => void>();
 let idleTimer: NodeJS.Timeout | null = null;
 
 function settleAll(reason: string): void {
@@ -54,10 +53,10 @@ function restartIdleTimer(): void {
 }
 
 /** Rasterises `svg` with resvg `options` on the picture thread; resolves (never rejects) with the PNG or why there is none. */
-export function rasterizeOnPictureThread(svg: string, options: unknown): Promise<RasterOutcome> {
+export function rasterizeOnPictureThread(svg: string, options: unknown): Promise<PngResult> {
   const thread = pictureThread();
   const id = nextId++;
-  const outcome = new Promise<RasterOutcome>((resolve) => owed.set(id, resolve));
+  const outcome = new Promise<PngResult>((resolve) => owed.set(id, resolve));
   thread.ref();
   thread.postMessage({ id, svg, options });
   restartIdleTimer();

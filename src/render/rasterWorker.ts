@@ -5,8 +5,9 @@
  * of garbage per picture, which this small heap collected only every few dozen pictures.
  */
 import { parentPort } from 'node:worker_threads';
-import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import type { ResvgRenderOptions } from '@resvg/resvg-js';
 import { collectGarbage } from './collectGarbage.ts';
+import { drawPng } from './drawPng.ts';
 import type { RasterReply, RasterRequest } from './rasterMessages.ts';
 
 /**
@@ -30,11 +31,9 @@ function collectWhenIdle(): void {
 parentPort!.on('message', (request: RasterRequest) => {
   let reply: RasterReply;
   try {
-    const rendered = new Resvg(request.svg, request.options as ResvgRenderOptions).render();
-    // Copied into an ArrayBuffer of its own, which can be handed over (transferred) whole.
-    const png = new Uint8Array(rendered.asPng());
-    reply = { id: request.id, ok: true, png, widthPx: rendered.width, heightPx: rendered.height };
-    parentPort!.postMessage(reply, [png.buffer as ArrayBuffer]);
+    const drawn = drawPng(request.svg, request.options as ResvgRenderOptions);
+    reply = { id: request.id, ok: true, ...drawn };
+    parentPort!.postMessage(reply, [drawn.png.buffer as ArrayBuffer]);
   } catch (error) {
     reply = { id: request.id, ok: false, reason: error instanceof Error ? error.message : String(error) };
     parentPort!.postMessage(reply);

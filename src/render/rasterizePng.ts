@@ -1,10 +1,11 @@
-import { Resvg, type ResvgRenderOptions } from '@resvg/resvg-js';
+import type { ResvgRenderOptions } from '@resvg/resvg-js';
 import { chartFontFiles, subsetCovers } from './chartFonts.ts';
+import { drawPng, type PngResult } from './drawPng.ts';
 import { PngCache } from './pngCache.ts';
 import { rasterizeOnPictureThread } from './rasterThread.ts';
 import { CHART_FONT_FAMILY } from './svgMarkup.ts';
 
-export type PngResult = { ok: true; png: Uint8Array; widthPx: number; heightPx: number } | { ok: false; reason: string };
+export type { PngResult } from './drawPng.ts';
 
 interface RenderSettings {
   options: ResvgRenderOptions;
@@ -71,8 +72,7 @@ export function rasterizeSvgToPng(svg: string, cache: PngCache = sharedCache): P
   if (cached) return { ok: true, ...cached };
   try {
     rasterizedCount += 1;
-    const rendered = new Resvg(svg, options).render();
-    const picture = { png: new Uint8Array(rendered.asPng()), widthPx: rendered.width, heightPx: rendered.height };
+    const picture = drawPng(svg, options);
     cache.set(key, picture);
     return { ok: true, ...picture };
   } catch (error) {
