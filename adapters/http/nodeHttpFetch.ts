@@ -37,21 +37,36 @@ function quoted(text: string): string {
   return `"${text.replace(/"/g, '%22').replace(/\r/g, '%0D').replace(/\n/g, '%0A')}"`;
 }
 
-async function multipart(form: FormData): Promise<Body> {
+/** One field of a multipart form: text, or a file's bytes with its name and type. */
+export type MultipartField = { name: string; text: string } | { name: string; fileName: string; contentType: string; bytes: Uint8Array };
+
+/** A multipart/form-data body (RFC 7578) in pieces; the bytes of a file are not copied. */
+export function multipartBody(fields: readonly MultipartField[]): { pieces: Buffer[]; contentType: string } {
   const boundary = `lapsewatch-${randomBytes(12).toString('hex')}`;
-  const parts: Buffer[] = [];
+  const pieces: Buffer[] = [];
+  for (const field of fields) {
+    if ('bytes' in field) {
+      pieces.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(field.name)}; filename=${quoted(field.fileName)}\r\nContent-Type: ${field.contentType}\r\n\r\n`, 'utf8'));
+      pieces.push(Buffer.from(field.bytes.buffer, field.bytes.byteOffset, field.bytes.byteLength), Buffer.from('\r\n'));
+    } else {
+      pieces.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(field.name)}\r\n\r\n${field.text}\r\n`, 'utf8'));
+    }
+  }
+  pieces.push(Buffer.from(`--${boundary}--\r\n`));
+  return { pieces, contentType: `multipart/form-data; boundary=${boundary}` };
+}
+
+async function multipart(form: FormData): Promise<Body> {
+  const fields: MultipartField[] = [];
   for (const [name, value] of form.entries() as Iterable<[string, unknown]>) {
     if (isFileLike(value)) {
       const fileName = typeof value.name === 'string' && value.name !== '' ? value.name : 'blob';
-      const type = value.type || 'application/octet-stream';
-      parts.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(name)}; filename=${quoted(fileName)}\r\nContent-Type: ${type}\r\n\r\n`, 'utf8'));
-      parts.push(Buffer.from(await value.arrayBuffer()), Buffer.from('\r\n'));
+      fields.push({ name, fileName, contentType: value.type || 'application/octet-stream', bytes: new Uint8Array(await value.arrayBuffer()) });
     } else {
-      parts.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(name)}\r\n\r\n${String(value)}\r\n`, 'utf8'));
+      fields.push({ name, text: String(value) });
     }
   }
-  parts.push(Buffer.from(`--${boundary}--\r\n`));
-  return { pieces: parts, contentType: `multipart/form-data; boundary=${boundary}` };
+  return multipartBody(fields);
 }
 
 async function encodeBody(body: unknown): Promise<Body | null> {

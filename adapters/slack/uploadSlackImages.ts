@@ -1,7 +1,6 @@
-import { randomBytes } from 'node:crypto';
 import type { WebClient } from '@slack/web-api';
 import type { SlackFile } from '../../src/render/encodeSlack.ts';
-import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
+import { multipartBody, nodeHttpFetch } from '../http/nodeHttpFetch.ts';
 
 export type UploadResult = { ok: true } | { ok: false; reason: string };
 
@@ -12,10 +11,8 @@ export type UploadResult = { ok: true } | { ok: false; reason: string };
  * answering thread per picture.
  */
 function uploadForm(png: Uint8Array): { body: Buffer; contentType: string } {
-  const boundary = `lapsewatch-${randomBytes(12).toString('hex')}`;
-  const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="body"; filename="Untitled"\r\nContent-Type: application/octet-stream\r\n\r\n`, 'latin1');
-  const tail = Buffer.from(`\r\n--${boundary}--\r\n`, 'latin1');
-  return { body: Buffer.concat([head, png, tail]), contentType: `multipart/form-data; boundary=${boundary}` };
+  const form = multipartBody([{ name: 'body', fileName: 'Untitled', contentType: 'application/octet-stream', bytes: png }]);
+  return { body: Buffer.concat(form.pieces), contentType: form.contentType };
 }
 
 /** Steps one and two for one file: an upload URL, then the bytes; returns the file's id. */
