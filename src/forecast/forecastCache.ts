@@ -3,6 +3,7 @@ import { describeLocation } from './describeLocation.ts';
 import { forecastFailure } from './forecastFailure.ts';
 import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastSource, ForecastWindow } from './forecastSource.ts';
 import { packSeries, unpackSeries, type PackedSeries } from './packedSeries.ts';
+import { keepRecent } from '../keepRecent.ts';
 
 const modelCycleSchema = z.object({
   /** A new run every this many hours (GFS: 6). */
@@ -169,10 +170,7 @@ export class ForecastCache implements ForecastSource {
   }
 
   private keepUnpacked(key: string, series: ForecastSeries): void {
-    this.unpacked.delete(key);
-    if (this.config.maxUnpacked === 0) return;
-    this.unpacked.set(key, series);
-    if (this.unpacked.size > this.config.maxUnpacked) this.unpacked.delete(this.unpacked.keys().next().value as string);
+    keepRecent(this.unpacked, key, series, this.config.maxUnpacked);
   }
 
   private store(key: string, entry: Entry): void {

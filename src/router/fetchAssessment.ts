@@ -1,5 +1,6 @@
 import type { ForecastLocation, ForecastSeries } from '../forecast/forecastSource.ts';
 import { forecastWindowFrom } from '../forecast/forecastWindowFrom.ts';
+import { keepRecent } from '../keepRecent.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import type { ResolvedPlace } from './resolvePlace.ts';
@@ -26,16 +27,8 @@ function withoutAnalyses(assessment: SeriesAssessment): SeriesAssessment {
 }
 
 function detailAssessment(series: ForecastSeries): SeriesAssessment {
-  const known = detailAssessments.get(series);
-  if (known) {
-    // Most recently used last, so the first key is the one to drop.
-    detailAssessments.delete(series);
-    detailAssessments.set(series, known);
-    return known;
-  }
-  const assessed = assessSeries(series, { keepAnalysis: true });
-  detailAssessments.set(series, assessed);
-  if (detailAssessments.size > MAX_DETAIL_ASSESSMENTS) detailAssessments.delete(detailAssessments.keys().next().value as ForecastSeries);
+  const assessed = detailAssessments.get(series) ?? assessSeries(series, { keepAnalysis: true });
+  keepRecent(detailAssessments, series, assessed, MAX_DETAIL_ASSESSMENTS);
   return assessed;
 }
 

@@ -1,5 +1,6 @@
 import type Database from 'better-sqlite3';
 import type { SqliteDatabase } from 'kysely';
+import { keepRecent } from '../keepRecent.ts';
 
 /**
  * The SQLite database as Kysely sees it, with each statement prepared once: Kysely's driver
@@ -16,14 +17,8 @@ export function withPreparedStatementCache(database: Database.Database, maxState
       database.close();
     },
     prepare(sql) {
-      let statement = prepared.get(sql);
-      if (statement) {
-        prepared.delete(sql);
-      } else {
-        statement = database.prepare(sql);
-        if (prepared.size >= maxStatements) prepared.delete(prepared.keys().next().value as string);
-      }
-      prepared.set(sql, statement);
+      const statement = prepared.get(sql) ?? database.prepare(sql);
+      keepRecent(prepared, sql, statement, maxStatements);
       return statement;
     },
   };
