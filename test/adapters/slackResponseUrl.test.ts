@@ -1,32 +1,25 @@
-import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { postToResponseUrl } from '../../adapters/answering/slackResponseUrl.ts';
+import { RecordingServer } from './recordingServer.ts';
 
-let server: Server;
+// A response URL on a local stand-in: /gone answers as an expired URL does, /slow too late.
+const responseUrls = new RecordingServer(async (call) => {
+  if (call.path === '/gone') return { status: 404, body: 'expired_url' };
+  if (call.path === '/slow') await new Promise((resolve) => setTimeout(resolve, 2_000).unref());
+  return { status: 200, body: 'ok' };
+});
 let base: string;
-const received: unknown[] = [];
+const received = () => responseUrls.callsTo(/^\/ok$/).map((call) => [call.headers['content-type'], call.body]);
 
 beforeAll(async () => {
-  server = createServer((request, response) => {
-    const chunks: Buffer[] = [];
-    request.on('data', (chunk: Buffer) => chunks.push(chunk));
-    request.on('end', () => {
-      if (request.url === '/gone') return void response.writeHead(404).end('expired_url');
-      if (request.url === '/slow') return void setTimeout(() => response.end('ok'), 2_000).unref();
-      received.push([request.headers['content-type'], JSON.parse(Buffer.concat(chunks).toString('utf8'))]);
-      response.end('ok');
-    });
-  });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  base = (await responseUrls.start()).origin;
 });
-afterAll(() => new Promise<void>((resolve) => server.close(() => resolve())));
+afterAll(() => responseUrls.stop());
 
 describe('posting to a Slack response URL', () => {
   it('sends the message as JSON', async () => {
     await postToResponseUrl(`${base}/ok`, { response_type: 'in_channel', text: 'Mixing reaches the dry layer (invented)' }, 5_000);
-    expect(received.at(-1)).toEqual(['application/json; charset=utf-8', { response_type: 'in_channel', text: 'Mixing reaches the dry layer (invented)' }]);
+    expect(received().at(-1)).toEqual(['application/json; charset=utf-8', { response_type: 'in_channel', text: 'Mixing reaches the dry layer (invented)' }]);
   });
 
   it('fails with the status and what Slack said, or with the deadline it missed', async () => {
