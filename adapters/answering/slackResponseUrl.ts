@@ -19,7 +19,7 @@ export async function postToResponseUrl(responseUrl: string, body: Record<string
     if (error instanceof Error && error.name === 'TimeoutError') throw new Error(`response URL did not answer within ${timeoutMs} ms`);
     throw error;
   }
-  if (response.status >= 200 && response.status < 300) return;
+  if (response.ok) return;
   const text = await response.text();
   throw new Error(`response URL answered HTTP ${response.status}${text.length > 0 ? `: ${text.slice(0, 200)}` : ''}`);
 }
