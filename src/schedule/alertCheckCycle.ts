@@ -25,7 +25,7 @@ import type { Logger } from 'pino';
 import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastWindow } from '../forecast/forecastSource.ts';
 import type { Message } from '../render/message.ts';
 import type { AlertRecord, Channel, Crossing, Mute, OutgoingMessage, Store, WatchWithChannel } from '../store/storeTypes.ts';
-import { channelTargetKey } from '../store/storeKeys.ts';
+import { channelTargetKey, channelTargetOf } from '../store/storeKeys.ts';
 import { ALL_LOCATIONS } from '../store/storeTypes.ts';
 import type { Rule, RuleId } from '../watch/rules/rule.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
@@ -241,6 +241,11 @@ function isMuted(mutes: readonly Mute[], ruleId: string, locationKey: string): b
   return mutes.some((m) => m.ruleId === ruleId && (m.locationKey === locationKey || m.locationKey === ALL_LOCATIONS));
 }
 
+/** What a channel's alert about a crossing is rendered from. */
+function alertInput(found: WatchCrossing, crossing: Crossing, watch: WatchWithChannel, assessment: SeriesAssessment, revision: number): AlertRenderInput {
+  return { crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision };
+}
+
 interface Member {
   watch: WatchWithChannel;
   mutes: Mute[];
@@ -284,12 +289,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     report: AlertCheckReport,
   ): Promise<void> {
     const render = (revision: number, to: WatchWithChannel[] = recipients): OutgoingMessage[] =>
-      to.map((watch) => ({
-        target: { platform: watch.channel.platform, teamId: watch.channel.teamId, channelId: watch.channel.channelId },
-        payload: messageToPayload(
-          deps.renderAlert({ crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision }),
-        ),
-      }));
+      to.map((watch) => ({ target: channelTargetOf(watch.channel), payload: messageToPayload(deps.renderAlert(alertInput(found, crossing, watch, assessment, revision))) }));
     const first = await store.alerts.recordCrossingWithOutbox(crossing, render(0), nowMs);
     if (first.status === 'recorded') {
       report.crossingsRecorded += 1;
@@ -336,8 +336,8 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
     nowMs: number,
     report: AlertCheckReport,
   ): Promise<void> {
-    const target = { platform: watch.channel.platform, teamId: watch.channel.teamId, channelId: watch.channel.channelId };
-    const inputs = alerts.map(({ found, crossing }) => ({ crossing: found, locationKey: crossing.locationKey, assessment, channel: watch.channel, placeName: watch.placeName, revision: 0 }));
+    const target = channelTargetOf(watch.channel);
+    const inputs = alerts.map(({ found, crossing }) => alertInput(found, crossing, watch, assessment, 0));
     if (alerts.length === 1) {
       const told = await store.alerts.queueRecordedCrossing(alerts[0]!.crossing, [{ target, payload: messageToPayload(deps.renderAlert(inputs[0]!)) }], nowMs);
       if (told.status === 'recorded') report.messagesQueued += told.outboxIds.length;

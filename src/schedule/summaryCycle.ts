@@ -9,6 +9,7 @@ import type { Logger } from 'pino';
 import type { ForecastResult, ForecastSeries, ForecastLocation, ForecastWindow } from '../forecast/forecastSource.ts';
 import type { Message } from '../render/message.ts';
 import type { Channel, Store, WatchWithChannel } from '../store/storeTypes.ts';
+import { channelTargetOf } from '../store/storeKeys.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
 import { assessSeries } from '../watch/assessSeries.ts';
 import { timeZoneAt } from '../geo/timeZoneAt.ts';
@@ -136,7 +137,7 @@ export function createSummaryCycle(options: SummaryCycleOptions): { run(nowMs: n
         const channel = summary.watch.channel;
         const { queued } = await store.outbox.enqueueSummary(
           {
-            target: { platform: channel.platform, teamId: channel.teamId, channelId: channel.channelId },
+            target: channelTargetOf(channel),
             localDate: summary.localDate,
             summaryKey: summary.summaryKey,
             payload: messageToPayload(message),

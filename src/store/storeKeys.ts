@@ -19,6 +19,11 @@ export function locationKeyOf(latitudeDeg: number, longitudeDeg: number): string
   return `${fmt(latitudeDeg)},${fmt(longitudeDeg)}`;
 }
 
+/** Where a stored channel's messages go: its platform, team and channel ids, and nothing more. */
+export function channelTargetOf(channel: ChannelTarget): ChannelTarget {
+  return { platform: channel.platform, teamId: channel.teamId, channelId: channel.channelId };
+}
+
 export function channelTargetKey(target: ChannelTarget): string {
   return `${target.platform}:${target.teamId}:${target.channelId}`;
 }
