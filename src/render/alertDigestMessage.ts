@@ -6,13 +6,12 @@ import type { RenderOptions } from './renderOptions.ts';
 import { buildMessage } from './safetyFooter.ts';
 import { sourceLine } from './sourceLine.ts';
 import type { UnitSystem } from './units.ts';
+import { mostSevere, SEVERITY_RANK } from '../watch/rules/severityRank.ts';
 
 /** Alert lines a digest lists before it says how many more there are: it must fit a phone screen. */
 export const DIGEST_MAX_LINES = 8;
 /** Mute buttons on a digest (Slack shows two such buttons on one message). */
 const DIGEST_MAX_MUTES = 2;
-
-const SEVERITY_RANK: Record<Message['severity'], number> = { warning: 0, watch: 1, info: 2 };
 
 /** One alert as a digest line: when, the rule, the value against its threshold. */
 function digestLine(alert: AlertContent, units: UnitSystem): string {
@@ -33,7 +32,7 @@ function digestLine(alert: AlertContent, units: UnitSystem): string {
 export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: UnitSystem, options: RenderOptions = {}): Message {
   const first = alerts[0];
   if (!first) throw new Error('an alert digest needs at least one alert');
-  const severity = alerts.reduce<Message['severity']>((worst, alert) => (SEVERITY_RANK[alert.severity] < SEVERITY_RANK[worst] ? alert.severity : worst), 'info');
+  const severity = mostSevere(alerts.map((alert) => alert.severity));
   const shown = alerts.slice(0, DIGEST_MAX_LINES).map((alert) => digestLine(alert, units));
   const more = alerts.length - shown.length;
   if (more > 0) shown.push(`…and ${more} more; a lookup of the place shows the whole 48 hours.`);

@@ -41,6 +41,7 @@ import { messageToPayload } from '../delivery/outboxPayload.ts';
 import { dueAlertChecks, groupWatchesByLocation, type DueAlertCheck } from './alertCheckDue.ts';
 import { mapWithConcurrency } from './mapWithConcurrency.ts';
 import { channelRuleSet, type ChannelRuleSet } from './ruleSet.ts';
+import { SEVERITY_RANK } from '../watch/rules/severityRank.ts';
 
 export interface AlertRenderInput {
   crossing: WatchCrossing;
@@ -99,7 +100,6 @@ function headlineFigures(input: AlertRenderInput): Pick<AlertContent, 'value' | 
   };
 }
 
-const SEVERITY_RANK: Record<WatchCrossing['severity'], number> = { warning: 0, watch: 1, info: 2 };
 
 function byForecastOrder(a: WatchCrossing, b: WatchCrossing): number {
   return Date.parse(a.validTime) - Date.parse(b.validTime) || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity];

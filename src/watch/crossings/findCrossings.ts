@@ -3,8 +3,8 @@ import type { SeriesAssessment } from '../seriesAssessment.ts';
 import type { Crossing } from './crossing.ts';
 import { hourToHourCrossings } from './hourToHourCrossings.ts';
 import { runToRunWorsenings } from './runToRunWorsenings.ts';
+import { SEVERITY_RANK } from '../rules/severityRank.ts';
 
-const SEVERITY_ORDER = { warning: 0, watch: 1, info: 2 } as const;
 
 /**
  * All crossings of a series, in time order (the more severe first within an hour): rules changing
@@ -21,6 +21,6 @@ export function findCrossings(current: SeriesAssessment, rules: readonly Rule[],
     }
   }
   return crossings.sort(
-    (a, b) => Date.parse(a.validTime) - Date.parse(b.validTime) || SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] || a.key.localeCompare(b.key),
+    (a, b) => Date.parse(a.validTime) - Date.parse(b.validTime) || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity] || a.key.localeCompare(b.key),
   );
 }

@@ -10,6 +10,7 @@ import type { Rule } from '../rules/rule.ts';
 import type { SeriesAssessment } from '../seriesAssessment.ts';
 import { daySummaryLines } from './daySummaryLines.ts';
 import { seriesTable } from './seriesTable.ts';
+import { mostSevere } from '../rules/severityRank.ts';
 
 export interface WatchReport {
   series: SeriesAssessment;
@@ -19,7 +20,6 @@ export interface WatchReport {
   sourceNotes: string[];
 }
 
-const SEVERITY_RANK = { info: 0, watch: 1, warning: 2 } as const;
 
 function crossingLine(crossing: Crossing): string {
   const repeats = crossing.repeatsSameDay > 0 ? ` It changes again ${crossing.repeatsSameDay} more time${crossing.repeatsSameDay === 1 ? '' : 's'} that day.` : '';
@@ -74,6 +74,6 @@ export function watchMessage(report: WatchReport): Message {
   sections.push({ heading: 'Rules used', lines: rules.map(ruleLine) });
 
   const alerting = crossings.filter((crossing) => crossing.direction !== 'end');
-  const severity = alerting.reduce<Message['severity']>((worst, crossing) => (SEVERITY_RANK[crossing.severity] > SEVERITY_RANK[worst] ? crossing.severity : worst), 'info');
+  const severity = mostSevere(alerting.map((crossing) => crossing.severity));
   return buildMessage({ kind: 'summary', title, sections, severity, inventedData: series.invented });
 }
