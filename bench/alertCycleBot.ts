@@ -11,8 +11,7 @@
  * argv: storeUrl forecastBaseUrl slackApiUrl discordApiUrl nowMs discordApplicationId
  */
 import { readFileSync } from 'node:fs';
-import { setFlagsFromString } from 'node:v8';
-import { runInNewContext } from 'node:vm';
+import { collectGarbage } from '../src/threads/collectGarbage.ts';
 import { ForecastCache } from '../src/forecast/forecastCache.ts';
 import { OpenMeteoSource } from '../src/forecast/openMeteoSource.ts';
 import { createAlertCheckCycle, realAlertCheckDeps } from '../src/schedule/alertCheckCycle.ts';
@@ -63,8 +62,7 @@ function residentBreakdownMb(): Record<string, number> {
 
 /** Heap still held after a full collection; called only between the timed sections. */
 function retainedHeapMb(): number {
-  setFlagsFromString('--expose-gc');
-  (runInNewContext('gc') as () => void)();
+  collectGarbage();
   return mb(process.memoryUsage().heapUsed);
 }
 

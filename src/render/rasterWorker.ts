@@ -6,7 +6,7 @@
  */
 import { parentPort } from 'node:worker_threads';
 import type { ResvgRenderOptions } from '@resvg/resvg-js';
-import { collectGarbage } from './collectGarbage.ts';
+import { collectGarbage } from '../threads/collectGarbage.ts';
 import { drawPng } from './drawPng.ts';
 import type { RasterReply, RasterRequest } from './rasterMessages.ts';
 
