@@ -15,6 +15,7 @@ import { collectGarbage } from '../src/threads/collectGarbage.ts';
 import { ForecastCache } from '../src/forecast/forecastCache.ts';
 import { OpenMeteoSource } from '../src/forecast/openMeteoSource.ts';
 import { createAlertCheckCycle, realAlertCheckDeps } from '../src/schedule/alertCheckCycle.ts';
+import { mapWithConcurrency } from '../src/schedule/mapWithConcurrency.ts';
 import { createOutboxSender } from '../src/delivery/outboxSender.ts';
 import { createLogger } from '../src/observability/createLogger.ts';
 import { openStore } from '../src/store/openStore.ts';
@@ -141,15 +142,11 @@ async function answerLookups(points: Array<{ latitudeDeg: number; longitudeDeg: 
   const texts = [...points.map((point) => `${point.latitudeDeg},${point.longitudeDeg}`), ...points.slice(0, details).map((point) => `detail ${point.latitudeDeg},${point.longitudeDeg} 15`)];
   let withPicture = 0;
   const startedAtMs = performance.now();
-  const next = { index: 0 };
-  const caller = async () => {
-    while (next.index < texts.length) {
-      const text = texts[next.index++]!;
-      const message = await router.handleCommand({ platform: 'slack', teamId: 'T0INVENTED', channelId: 'C0BENCH0', userId: 'U0BENCH', text, canManageChannel: true });
-      if (message.images.length > 0) withPicture += 1;
-    }
-  };
-  await Promise.all(Array.from({ length: 4 }, caller));
+  // Each answer is let go once counted, as a channel's would be once sent.
+  await mapWithConcurrency(texts, 4, async (text) => {
+    const message = await router.handleCommand({ platform: 'slack', teamId: 'T0INVENTED', channelId: 'C0BENCH0', userId: 'U0BENCH', text, canManageChannel: true });
+    if (message.images.length > 0) withPicture += 1;
+  });
   return { asked: texts.length, withPicture, seconds: (performance.now() - startedAtMs) / 1000 };
 }
 
