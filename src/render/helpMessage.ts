@@ -2,7 +2,8 @@ import { COMMAND_EXAMPLES, type Verb } from '../router/commandGrammar.ts';
 import type { Message } from './message.ts';
 import { buildMessage } from './safetyFooter.ts';
 
-const ORDER: Verb[] = ['lookup', 'detail', 'save', 'places', 'forget', 'watch', 'unwatch', 'watching', 'rules', 'threshold', 'morning', 'units', 'help'];
+/** Every verb, in the order the grammar lists them, so a new command cannot be left out of help. */
+const ORDER = Object.keys(COMMAND_EXAMPLES) as Verb[];
 
 /** One screen: every command, what it does and one example, prefixed with the platform's command. */
 export function buildHelpMessage(commandPrefix: string, options: { inventedData: boolean; demoPlaceNames: string[]; localFooterLine?: string }): Message {

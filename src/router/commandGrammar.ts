@@ -19,6 +19,7 @@ export type Command =
   | { verb: 'watching' }
   | { verb: 'rules' }
   | { verb: 'threshold'; ruleId: string; value: number | 'default' }
+  | { verb: 'unmute'; ruleId: string; place: PlaceRef | null }
   | { verb: 'morning'; localTime: string | null }
   | { verb: 'units'; unitSystem: 'metric' | 'us' }
   | { verb: 'help' };
@@ -37,6 +38,7 @@ export const COMMAND_EXAMPLES: Record<Verb, { usage: string; example: string; wh
   watching: { usage: 'watching', example: 'watching', what: 'what this channel watches' },
   rules: { usage: 'rules', example: 'rules', what: "alert rules and this channel's thresholds" },
   threshold: { usage: 'threshold RULE VALUE|default', example: 'threshold hdw-above 300', what: "change a rule's threshold for this channel" },
+  unmute: { usage: 'unmute RULE [PLACE|LAT,LON]', example: 'unmute hdw-above Cinder Ridge', what: 'end a mute early (without a place: everywhere)' },
   morning: { usage: 'morning HH:MM|off', example: 'morning 06:30', what: 'morning summary time (local to each place)' },
   units: { usage: 'units us|metric', example: 'units us', what: 'units for this channel' },
   help: { usage: 'help', example: 'help', what: 'this list' },
@@ -125,10 +127,7 @@ const thresholdArguments = z.string().transform((text, context) => {
     context.addIssue({ code: 'custom', message: 'a rule id and one value (or "default") are needed' });
     return z.NEVER;
   }
-  if (!/^[a-z0-9-]{2,60}$/.test(ruleId)) {
-    context.addIssue({ code: 'custom', message: `"${ruleId}" is not a rule id (see "rules")` });
-    return z.NEVER;
-  }
+  if (!ruleIdWord(ruleId, context)) return z.NEVER;
   if (rawValue.toLowerCase() === 'default') return { ruleId, value: 'default' as const };
   const value = Number(rawValue);
   if (!Number.isFinite(value)) {
@@ -136,6 +135,29 @@ const thresholdArguments = z.string().transform((text, context) => {
     return z.NEVER;
   }
   return { ruleId, value };
+});
+
+/** A rule id as typed: lower-case letters, digits and hyphens (the shipped ids are of this form). */
+function ruleIdWord(word: string, context: z.RefinementCtx): boolean {
+  if (/^[a-z0-9-]{2,60}$/.test(word)) return true;
+  context.addIssue({ code: 'custom', message: `"${word}" is not a rule id (see "rules")` });
+  return false;
+}
+
+const unmuteArguments = z.string().transform((text, context) => {
+  const [ruleId, ...placeWords] = text.trim().split(/\s+/).filter(Boolean);
+  if (!ruleId) {
+    context.addIssue({ code: 'custom', message: 'a rule id is needed, then a place (or none for everywhere)' });
+    return z.NEVER;
+  }
+  if (!ruleIdWord(ruleId, context)) return z.NEVER;
+  if (placeWords.length === 0) return { ruleId, place: null };
+  const place = placeRef.safeParse(placeWords.join(' '));
+  if (!place.success) {
+    context.addIssue({ code: 'custom', message: place.error.issues[0].message });
+    return z.NEVER;
+  }
+  return { ruleId, place: place.data };
 });
 
 const morningArguments = z
@@ -195,6 +217,10 @@ export function parseCommand(rawText: string): ParsedCommand {
     }
     case 'threshold': {
       const parsed = thresholdArguments.safeParse(rest);
+      return parsed.success ? { ok: true, command: { verb, ...parsed.data } } : fail(verb, parsed.error);
+    }
+    case 'unmute': {
+      const parsed = unmuteArguments.safeParse(rest);
       return parsed.success ? { ok: true, command: { verb, ...parsed.data } } : fail(verb, parsed.error);
     }
     case 'morning': {

@@ -82,17 +82,17 @@ export function createRuleRepository({ db }: StoreContext): RuleRepository {
       return toMute(row);
     },
 
-    async clearMute(channelRef, ruleId, locationKey) {
+    async endMutes(channelRef, ruleId, locationKey, nowMs) {
       parseInput(idSchema, channelRef, 'channel id');
       const rule = parseInput(ruleIdSchema, ruleId, 'rule id');
-      const key = parseInput(locationKeySchema, locationKey, 'location key');
-      const result = await db
-        .deleteFrom('mutes')
-        .where('channel_ref', '=', channelRef)
-        .where('rule_id', '=', rule)
-        .where('location_key', '=', key)
-        .executeTakeFirst();
-      return Number(result.numDeletedRows) > 0;
+      const key = locationKey === null ? null : parseInput(locationKeySchema, locationKey, 'location key');
+      parseInput(epochMsSchema, nowMs, 'nowMs');
+      // Ended, not deleted: the next alert check reads mutes that ended since it last looked and
+      // tells the channel what they held back, as it does when a mute runs out.
+      let update = db.updateTable('mutes').set({ until_ms: nowMs }).where('channel_ref', '=', channelRef).where('rule_id', '=', rule).where('until_ms', '>', nowMs);
+      if (key !== null) update = update.where('location_key', '=', key);
+      const rows = await update.returningAll().execute();
+      return rows.map(toMute).sort((a, b) => a.locationKey.localeCompare(b.locationKey));
     },
 
     async listActiveMutes(channelRef, nowMs) {

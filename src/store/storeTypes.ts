@@ -184,7 +184,12 @@ export interface RuleRepository {
   listOverrides(channelRef: string): Promise<RuleOverride[]>;
   /** Mutes a rule at a location (or `ALL_LOCATIONS`) until `untilMs`; a second mute replaces the first. */
   setMute(channelRef: string, ruleId: string, locationKey: string, untilMs: number, nowMs: number): Promise<Mute>;
-  clearMute(channelRef: string, ruleId: string, locationKey: string): Promise<boolean>;
+  /**
+   * Ends the channel's mutes of a rule now: at one location key, or at every key (with
+   * `ALL_LOCATIONS` among them) when `locationKey` is null. Returns the mutes it ended, none when
+   * none was in force. Ended mutes stay listed by `listMutesEndingAfter`.
+   */
+  endMutes(channelRef: string, ruleId: string, locationKey: string | null, nowMs: number): Promise<Mute[]>;
   /** Mutes still in force at `nowMs`. */
   listActiveMutes(channelRef: string, nowMs: number): Promise<Mute[]>;
   /** Mutes that end after `afterMs`: those still in force, and those that ended since then. */

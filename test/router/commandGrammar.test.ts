@@ -22,6 +22,9 @@ describe('parseCommand', () => {
     expect(parseCommand('morning off')).toEqual({ ok: true, command: { verb: 'morning', localTime: null } });
     expect(parseCommand('units US')).toEqual({ ok: true, command: { verb: 'units', unitSystem: 'us' } });
     expect(parseCommand('threshold hdw-above 300')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-above', value: 300 } });
+    expect(parseCommand('unmute hdw-above Cinder Ridge')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: { kind: 'name', name: 'Cinder Ridge' } } });
+    expect(parseCommand('unmute hdw-above 44.3,-116.9')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: { kind: 'point', latitudeDeg: 44.3, longitudeDeg: -116.9 } } });
+    expect(parseCommand('unmute hdw-above')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: null } });
     expect(parseCommand('threshold hdw-above default')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-above', value: 'default' } });
     expect(parseCommand('')).toEqual({ ok: true, command: { verb: 'help' } });
   });
@@ -30,6 +33,9 @@ describe('parseCommand', () => {
     ['morning 25:00', /"morning": "25:00" is not a time of day.*Try: `morning 06:30`/],
     ['units furlongs', /"units": choose "us".*Try: `units us`/],
     ['threshold hdw-above lots', /"threshold": "lots" is not a number/],
+    ['unmute', /"unmute": a rule id is needed.*Try: `unmute hdw-above Cinder Ridge`/],
+    ['unmute HDW!', /"unmute": "HDW!" is not a rule id/],
+    ['unmute hdw-above 95,10', /"unmute": .*latitude/i],
     ['save Cinder Ridge', /"save": a name and then a point/],
     ['95N 10E', /Lookup: latitude 95 is outside/],
     ['places now', /"places": takes nothing after it/],

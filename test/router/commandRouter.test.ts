@@ -62,7 +62,8 @@ describe('the command router', () => {
   it('answers help with every command and the footer', async () => {
     const message = await router.handleCommand(request('help'));
     const shown = text(message);
-    for (const word of ['detail', 'save', 'watch', 'unwatch', 'threshold', 'morning', 'units']) expect(shown).toContain(word);
+    for (const { example } of Object.values(COMMAND_EXAMPLES)) expect(shown).toContain(`\`${example}\``);
+    expect(shown).toContain('`unmute hdw-above Cinder Ridge`');
     expect(message.footer).toContain(SAFETY_FOOTER);
   });
 
@@ -162,6 +163,51 @@ describe('the command router', () => {
     expect(await store.rules.isMuted(channel!.id, 'mixing-reaches-dry-layer', '43.6200,-115.4800', NOW_MS + 7 * 3_600_000)).toBe(false);
   });
 
+  it('ends a mute early by command, at a place or everywhere, and changes nothing when it cannot', async () => {
+    const channelId = 'unmute-ops';
+    const at = (value: string) => router.handleAction({ platform: 'terminal', teamId: '', channelId, userId: 'fbann', actionId: 'mute-rule', value, canManageChannel: true });
+    const notice = await at('hdw-above|43.62,-115.48');
+    // The mute notice says how to end it, in a form the command takes.
+    const hint = /`(unmute [^`]+)`/.exec(text(notice))?.[1];
+    expect(hint).toBe('unmute hdw-above 43.62,-115.48');
+    await at('hdw-above|44.3,-116.9');
+    await router.handleCommand(request('save Cinder Ridge 43.62,-115.48', { channelId }));
+    const channel = (await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId }))!;
+    const muted = (key: string) => store.rules.isMuted(channel.id, 'hdw-above', key, NOW_MS);
+
+    const rules = text(await router.handleCommand(request('rules', { channelId })));
+    expect(rules).toContain('`hdw-above` at Cinder Ridge until');
+    expect(rules).toContain('`hdw-above` at 44.30°N 116.90°W until');
+
+    const refused = await router.handleCommand(request(hint!, { channelId, canManageChannel: false }));
+    expect(refused.kind).toBe('error');
+    expect(await muted('43.6200,-115.4800')).toBe(true);
+    const unknownRule = await router.handleCommand(request('unmute no-such-rule Cinder Ridge', { channelId }));
+    expect(unknownRule.title).toMatch(/There is no rule "no-such-rule".*Nothing was changed/);
+    const unknownPlace = await router.handleCommand(request('unmute hdw-above Nowhere Flat', { channelId }));
+    expect(unknownPlace.kind).toBe('error');
+    expect(unknownPlace.title).toMatch(/No place called "Nowhere Flat".*Nothing was changed/);
+    expect(await muted('43.6200,-115.4800')).toBe(true);
+
+    const ended = await router.handleCommand(request('unmute hdw-above Cinder Ridge', { channelId }));
+    expect(ended.kind).toBe('notice');
+    expect(ended.title).toMatch(/alerts again at Cinder Ridge/);
+    expect(text(ended)).toMatch(/still stand are posted here at the next alert check/);
+    expect(await muted('43.6200,-115.4800')).toBe(false);
+    expect(await muted('44.3000,-116.9000')).toBe(true);
+
+    const again = await router.handleCommand(request('unmute hdw-above Cinder Ridge', { channelId }));
+    expect(again.title).toMatch(/is not muted at Cinder Ridge in this channel\. Nothing was changed/);
+    expect(text(again)).toContain('muted at 44.30°N 116.90°W until');
+
+    const everywhere = await router.handleCommand(request('unmute hdw-above', { channelId }));
+    expect(everywhere.title).toMatch(/alerts again everywhere in this channel/);
+    expect(text(everywhere)).toContain('Mutes ended: 44.30°N 116.90°W.');
+    expect(await muted('44.3000,-116.9000')).toBe(false);
+    expect((await router.handleCommand(request('unmute hdw-above', { channelId }))).title).toMatch(/is not muted in this channel\. Nothing was changed/);
+    expect(faults).toEqual([]);
+  });
+
   it('shows the detail of a named hour', async () => {
     const detail = await router.handleCommand(request('detail Kestrel Bench ICP 15'));
     expect(detail.kind).toBe('detail');
@@ -179,7 +225,7 @@ describe('the command router', () => {
 
   it('runs every example that help shows, in a channel of its own, without an error', async () => {
     for (const [verb, { example }] of Object.entries(COMMAND_EXAMPLES)) {
-      const prepared = verb === 'forget' || verb === 'unwatch' || verb === 'detail' || verb === 'watch' ? [`save Cinder Ridge 43.62,-115.48`] : [];
+      const prepared = verb === 'forget' || verb === 'unwatch' || verb === 'detail' || verb === 'watch' || verb === 'unmute' ? [`save Cinder Ridge 43.62,-115.48`] : [];
       const channelId = `examples-${verb}`;
       for (const text of prepared) await router.handleCommand(request(text, { channelId }));
       if (verb === 'unwatch') await router.handleCommand(request('watch Cinder Ridge', { channelId }));

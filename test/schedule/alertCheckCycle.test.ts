@@ -201,6 +201,28 @@ describe('alert-check cycle', () => {
     expect(headline(await allOutbox(store), 'slack:C0BBB').filter((key) => toB.includes(key))).toEqual([]);
   });
 
+  it('a mute ended early (the unmute command) is told at the next check like one that ran out', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
+    const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
+    await store.rules.setMute(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 6 * 3600_000, MORNING);
+    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: countingDemoSource().fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const headlineToB = async (): Promise<Array<{ dedupeKey: string }>> => (await allOutbox(store)).filter((row) => row.target === 'slack:C0BBB' && row.dedupeKey.includes('|mixing-reaches-dry-layer|'));
+
+    await cycle.run(MORNING);
+    await cycle.run(MORNING + 40 * 60_000);
+    expect(await headlineToB()).toEqual([]);
+    // Ended an hour in, five hours early: the next check tells B what the mute held back.
+    expect((await store.rules.endMutes(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 60 * 60_000)).length).toBe(1);
+    const after = await cycle.run(MORNING + 80 * 60_000);
+    expect(after.toldStanding).toBeGreaterThan(0);
+    const told = (await headlineToB()).map((row) => row.dedupeKey);
+    expect(told.length).toBeGreaterThan(0);
+    // Told once: the next check queues none of them again (allOutbox claims what it reads).
+    await cycle.run(MORNING + 120 * 60_000);
+    expect((await headlineToB()).filter((row) => told.includes(row.dedupeKey))).toEqual([]);
+  });
+
   it('a newer model run makes a place due before the interval', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [ALDER_SINK], MORNING);
     const source = countingDemoSource();

@@ -46,8 +46,35 @@ describeEachBackend('rule overrides and mutes', (h) => {
     // A second mute of the same rule and place replaces the first.
     await store.rules.setMute(channel.id, 'coupling', here, 50_000, 2_000);
     expect(await store.rules.isMuted(channel.id, 'coupling', here, 40_000)).toBe(true);
-    expect(await store.rules.clearMute(channel.id, 'coupling', here)).toBe(true);
-    expect(await store.rules.isMuted(channel.id, 'coupling', here, 40_000)).toBe(false);
     await expect(store.rules.setMute(channel.id, '', here, 1, 1)).rejects.toThrow(/rule id/);
+  });
+
+  it('ends a mute early at one place or everywhere, and keeps it listed as ended', async () => {
+    const store = await h.openFresh();
+    const channel = await store.channels.ensureChannel(target, { unitSystem: 'metric', summaryLocalTime: null }, 1);
+    const other = await store.channels.ensureChannel({ ...target, channelId: 'other' }, { unitSystem: 'metric', summaryLocalTime: null }, 1);
+    await store.rules.setMute(channel.id, 'coupling', here, 50_000, 1_000);
+    await store.rules.setMute(channel.id, 'coupling', there, 50_000, 1_000);
+    await store.rules.setMute(channel.id, 'hdw-high', here, 50_000, 1_000);
+    await store.rules.setMute(other.id, 'coupling', here, 50_000, 1_000);
+
+    const atHere = await store.rules.endMutes(channel.id, 'coupling', here, 20_000);
+    expect(atHere.map((m) => [m.ruleId, m.locationKey, m.untilMs])).toEqual([['coupling', here, 20_000]]);
+    expect(await store.rules.isMuted(channel.id, 'coupling', here, 20_000)).toBe(false);
+    // The same rule elsewhere, another rule here and another channel's mute are untouched.
+    expect(await store.rules.isMuted(channel.id, 'coupling', there, 20_000)).toBe(true);
+    expect(await store.rules.isMuted(channel.id, 'hdw-high', here, 20_000)).toBe(true);
+    expect(await store.rules.isMuted(other.id, 'coupling', here, 20_000)).toBe(true);
+    // Ended, so the next alert check (which reads mutes ending after its last look) sees it.
+    expect((await store.rules.listMutesEndingAfter(channel.id, 10_000)).map((m) => [m.ruleId, m.locationKey, m.untilMs])).toContainEqual(['coupling', here, 20_000]);
+    // Ending it again ends nothing: it is no longer in force.
+    expect(await store.rules.endMutes(channel.id, 'coupling', here, 21_000)).toEqual([]);
+
+    await store.rules.setMute(channel.id, 'coupling', ALL_LOCATIONS, 60_000, 22_000);
+    const everywhere = await store.rules.endMutes(channel.id, 'coupling', null, 30_000);
+    expect(everywhere.map((m) => m.locationKey)).toEqual([ALL_LOCATIONS, there]);
+    expect(await store.rules.isMuted(channel.id, 'coupling', there, 30_000)).toBe(false);
+    expect(await store.rules.isMuted(channel.id, 'hdw-high', here, 30_000)).toBe(true);
+    await expect(store.rules.endMutes(channel.id, 'coupling', '', 30_000)).rejects.toThrow(/location key/);
   });
 });

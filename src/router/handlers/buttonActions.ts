@@ -22,7 +22,12 @@ export async function muteRule(context: HandlerContext, rawValue: string): Promi
   const locationKey = locationKeyOf(Number(point[1]), Number(point[2]));
   const untilMs = context.nowMs() + MUTE_DURATION_MS;
   await context.store.rules.setMute(context.channel.id, ruleId, locationKey, untilMs, context.nowMs());
-  return noticeMessage(`Muted "${rule.name}" at ${describePoint(Number(point[1]), Number(point[2]))} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`, ['Other rules and places still alert. When the mute ends, its warnings that still stand are posted here again.'], context.localFooterLine);
+  const lines = [
+    'Other rules and places still alert. When the mute ends, its warnings that still stand are posted here again.',
+    // The button's point, which the command resolves to the same location key.
+    `End it early: \`unmute ${ruleId} ${placeKey}\``,
+  ];
+  return noticeMessage(`Muted "${rule.name}" at ${describePoint(Number(point[1]), Number(point[2]))} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`, lines, context.localFooterLine);
 }
 
 export async function detailFromButton(context: HandlerContext, rawValue: string): Promise<Message> {

@@ -1,8 +1,34 @@
 import type { Message } from '../../render/message.ts';
+import { locationKeyOf } from '../../store/storeKeys.ts';
+import { ALL_LOCATIONS, type Mute } from '../../store/storeTypes.ts';
 import { ruleValueProblems } from '../../watch/rules/checkRuleValues.ts';
 import { isRuleId, RULE_IDS } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
+import type { PlaceRef } from '../commandGrammar.ts';
+import { describePoint, resolvePlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
+
+/** Where a mute holds, as people read it: the channel's saved name for the point, else the point; or everywhere. */
+async function muteLocationNames(context: HandlerContext, mutes: readonly Mute[]): Promise<Map<string, string>> {
+  const saved = await context.store.places.listPlaces(context.channel.id);
+  const names = new Map<string, string>();
+  for (const mute of mutes) {
+    if (names.has(mute.locationKey)) continue;
+    if (mute.locationKey === ALL_LOCATIONS) {
+      names.set(mute.locationKey, 'all places');
+      continue;
+    }
+    const place = saved.find((candidate) => locationKeyOf(candidate.latitudeDeg, candidate.longitudeDeg) === mute.locationKey);
+    const [latitude, longitude] = mute.locationKey.split(',').map(Number);
+    names.set(mute.locationKey, place?.name ?? (Number.isFinite(latitude) && Number.isFinite(longitude) ? describePoint(latitude!, longitude!) : mute.locationKey));
+  }
+  return names;
+}
+
+/** When a mute ends, "2026-08-14 21:00Z": in UTC, as a channel's places may lie in different time zones. */
+function muteEnd(untilMs: number): string {
+  return new Date(untilMs).toISOString().slice(0, 16).replace('T', ' ') + 'Z';
+}
 
 export async function listRules(context: HandlerContext): Promise<Message> {
   const overrides = new Map((await context.store.rules.listOverrides(context.channel.id)).map((override) => [override.ruleId, override]));
@@ -15,8 +41,11 @@ export async function listRules(context: HandlerContext): Promise<Message> {
     const state = rule.enabled ? rule.severity : 'off';
     return `\`${rule.id}\` ${rule.name}: ${threshold} [${state}]`;
   });
-  for (const mute of mutes) lines.push(`muted: \`${mute.ruleId}\` at ${mute.locationKey} until ${new Date(mute.untilMs).toISOString().slice(0, 16)}Z`);
-  return noticeMessage('Alert rules', [...lines, 'Change one for this channel: `threshold hdw-above 300`; back to the default: `threshold hdw-above default`.'], context.localFooterLine);
+  const places = await muteLocationNames(context, mutes);
+  for (const mute of mutes) lines.push(`muted: \`${mute.ruleId}\` at ${places.get(mute.locationKey)} until ${muteEnd(mute.untilMs)}`);
+  const hints = ['Change one for this channel: `threshold hdw-above 300`; back to the default: `threshold hdw-above default`.'];
+  if (mutes.length > 0) hints.push(`End a mute early: \`unmute ${mutes[0]!.ruleId}\` (everywhere) or with a place after the rule.`);
+  return noticeMessage('Alert rules', [...lines, ...hints], context.localFooterLine);
 }
 
 export async function setThreshold(context: HandlerContext, ruleId: string, value: number | 'default'): Promise<Message> {
@@ -35,4 +64,34 @@ export async function setThreshold(context: HandlerContext, ruleId: string, valu
   }
   await context.store.rules.setOverride(context.channel.id, ruleId, value, null, context.nowMs());
   return noticeMessage(`${rule.name}: threshold ${value} ${rule.unit} for this channel (default ${rule.threshold}).`, [], context.localFooterLine);
+}
+
+/**
+ * Ends the channel's mutes of a rule now, at one place or (without one) everywhere. Its warnings
+ * that still stand are told at the next alert check, as when a mute runs out (alertCheckCycle.ts).
+ */
+export async function endMute(context: HandlerContext, ruleId: string, placeRef: PlaceRef | null): Promise<Message> {
+  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
+  if (!isRuleId(ruleId) || !rule) {
+    return errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine);
+  }
+  let where: { locationKey: string | null; name: string } = { locationKey: null, name: 'everywhere' };
+  if (placeRef) {
+    const resolved = await resolvePlace(context, placeRef);
+    if (!resolved.ok) return errorMessage(`${resolved.error} Nothing was changed.`, context.localFooterLine);
+    where = { locationKey: resolved.place.locationKey, name: `at ${resolved.place.displayName}` };
+  }
+  const nowMs = context.nowMs();
+  const ended = await context.store.rules.endMutes(context.channel.id, ruleId, where.locationKey, nowMs);
+  if (ended.length === 0) {
+    const stillMuted = (await context.store.rules.listActiveMutes(context.channel.id, nowMs)).filter((mute) => mute.ruleId === ruleId);
+    const places = await muteLocationNames(context, stillMuted);
+    const lines = stillMuted.map((mute) => `muted at ${places.get(mute.locationKey)} until ${muteEnd(mute.untilMs)}`);
+    return noticeMessage(`"${rule.name}" is not muted ${placeRef ? `${where.name} ` : ''}in this channel. Nothing was changed.`, lines, context.localFooterLine);
+  }
+  const places = await muteLocationNames(context, ended);
+  const lines = placeRef ? [] : [`Mutes ended: ${ended.map((mute) => places.get(mute.locationKey)).join('; ')}.`];
+  lines.push('Its warnings that still stand are posted here at the next alert check.');
+  return noticeMessage(`"${rule.name}" alerts again ${where.name}${placeRef ? '' : ' in this channel'}.`, lines, context.localFooterLine);
 }
