@@ -13,5 +13,7 @@ export function instrumentedSource(inner: ForecastSource): ForecastSource {
       timeProviderRequest(inner.name, () => inner.fetchSeries(location, window), (result) => (result.ok ? null : result.error.kind)),
     fetchMany: (locations: ForecastLocation[], window: ForecastWindow) =>
       timeProviderRequest(inner.name, () => inner.fetchMany(locations, window), firstFailureKind),
+    // Not timed: a metadata probe, not a forecast request.
+    ...(inner.latestRunTime ? { latestRunTime: () => inner.latestRunTime!() } : {}),
   };
 }

@@ -134,7 +134,13 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
   const fetchSeries = forecast.source.fetchSeries.bind(forecast.source);
   const alertCheck = createAlertCheckCycle({
     store,
-    deps: realAlertCheckDeps({ fetchSeries, defaultRules: rules.rules, ...(localFooterLine !== undefined ? { footerLocalLine: localFooterLine } : {}) }),
+    deps: realAlertCheckDeps({
+      fetchSeries,
+      defaultRules: rules.rules,
+      // A new run makes watched places due at once, and the cache lets go of the older run's series.
+      ...(forecast.source.latestRunTime ? { latestRunTime: () => forecast.source.latestRunTime!() } : {}),
+      ...(localFooterLine !== undefined ? { footerLocalLine: localFooterLine } : {}),
+    }),
     workerId,
     logger,
     intervalMs: config.config.schedule.alertCheckEveryMinutes * 60_000,

@@ -45,6 +45,12 @@ interface Entry {
   /** Held packed: one place's series is ~0.3 MB of objects, ~75 kB packed. */
   packed: PackedSeries;
   expiresMs: number;
+  /**
+   * The newest run this entry answers for, epoch ms: its series' run, or the newest run the provider
+   * had announced when it was fetched, if later (a provider that still served the older run is then
+   * asked again only when it announces a newer one, not on every request).
+   */
+  coversRunMs: number;
 }
 
 /**
@@ -62,6 +68,8 @@ export class ForecastCache implements ForecastSource {
   /** Series as objects for the most recently used keys, oldest first. */
   private readonly unpacked = new Map<string, ForecastSeries>();
   private readonly inFlight = new Map<string, Promise<ForecastResult>>();
+  /** The newest run the provider has said it serves (latestRunTime), epoch ms; null until it says. */
+  private latestKnownRunMs: number | null = null;
 
   constructor(
     private readonly inner: ForecastSource,
@@ -85,6 +93,7 @@ export class ForecastCache implements ForecastSource {
   async fetchMany(locations: ForecastLocation[], window: ForecastWindow): Promise<ForecastResult[]> {
     const now = this.nowMs();
     const run = this.currentRun(now);
+    const knownRunMs = this.latestKnownRunMs ?? Number.NEGATIVE_INFINITY;
     const results: ForecastResult[] = new Array(locations.length);
     const waits: Promise<void>[] = [];
     const upstream: { key: string; location: ForecastLocation; settle: (result: ForecastResult) => void }[] = [];
@@ -97,7 +106,7 @@ export class ForecastCache implements ForecastSource {
         return;
       }
       const entry = this.entries.get(key);
-      if (entry && entry.expiresMs > now) {
+      if (entry && entry.expiresMs > now && !(this.latestKnownRunMs !== null && entry.coversRunMs < this.latestKnownRunMs)) {
         this.stats.hits++;
         results[index] = relabel({ ok: true, series: this.seriesOf(key, entry) }, location);
         return;
@@ -120,7 +129,7 @@ export class ForecastCache implements ForecastSource {
         upstream.forEach((request, position) => {
           const answer = answers[position];
           if (answer.ok) {
-            this.store(request.key, { packed: packSeries(answer.series), expiresMs: run.expiresMs });
+            this.store(request.key, { packed: packSeries(answer.series), expiresMs: run.expiresMs, coversRunMs: Math.max(Date.parse(answer.series.runTime) || Number.NEGATIVE_INFINITY, knownRunMs) });
             this.keepUnpacked(request.key, answer.series);
           }
           this.inFlight.delete(request.key);
@@ -134,6 +143,18 @@ export class ForecastCache implements ForecastSource {
     }
     await Promise.all(waits);
     return results;
+  }
+
+  /**
+   * Asks the wrapped source for the newest run it serves and remembers it: entries of an older run
+   * are then fetched again, rather than kept until the update cycle says a run is due (a run served
+   * early, or one served late that the cycle's expiry already passed, would otherwise wait hours).
+   */
+  async latestRunTime(): Promise<string | null> {
+    const latest = (await this.inner.latestRunTime?.()) ?? null;
+    const latestMs = latest === null ? Number.NaN : Date.parse(latest);
+    if (Number.isFinite(latestMs)) this.latestKnownRunMs = Math.max(this.latestKnownRunMs ?? latestMs, latestMs);
+    return latest;
   }
 
   /** Entries currently held (expired ones included until they are replaced or pruned). */

@@ -58,6 +58,12 @@ export interface ForecastSource {
   /** Short name shown in messages, e.g. "open-meteo (gfs_seamless)" or "demo (invented data)". */
   readonly name: string;
   fetchSeries(location: ForecastLocation, window: ForecastWindow): Promise<ForecastResult>;
+  /**
+   * The newest model run the provider says it serves now, ISO 8601, read from the provider (a run
+   * time derived from the update cycle does not count): null when it cannot say. Absent when the
+   * source has no such probe. Lets the alert check see a new run before its interval.
+   */
+  latestRunTime?(): Promise<string | null>;
   /** Several locations at once where the provider allows it; results in the same order. */
   fetchMany(locations: ForecastLocation[], window: ForecastWindow): Promise<ForecastResult[]>;
 }

@@ -46,6 +46,12 @@ export class OpenMeteoSource implements ForecastSource {
     return result;
   }
 
+  /** From the metadata API (reused for metadataReuseMs); null when only a derived guess is at hand. */
+  async latestRunTime(): Promise<string | null> {
+    const run = await this.runTimes.current();
+    return run.note === undefined ? run.runTime : null;
+  }
+
   async fetchMany(locations: ForecastLocation[], window: ForecastWindow): Promise<ForecastResult[]> {
     const results: ForecastResult[] = new Array(locations.length);
     // Locations that give a terrain height and those that do not cannot share the elevation parameter.

@@ -94,6 +94,52 @@ describe('ForecastCache', () => {
     expect(standIn.forecastRequests - before).toBe(2);
   });
 
+  it('lets go of a series once the provider announces a newer run, and asks once for it', async () => {
+    const initialRun = standIn.runInitialisationSeconds;
+    try {
+      let now = Date.UTC(2026, 7, 14, 12, 0);
+      const cache = cachedSource(() => now);
+      const location = { latitude: 47, longitude: -119 };
+      const before = standIn.forecastRequests;
+      const runOf = async () => {
+        const result = await cache.fetchSeries(location, WINDOW);
+        if (!result.ok) throw new Error(result.error.message);
+        return result.series.runTime;
+      };
+      standIn.runInitialisationSeconds = Date.UTC(2026, 7, 14, 6) / 1000;
+      expect(await runOf()).toBe('2026-08-14T06:00:00Z');
+      expect(await cache.latestRunTime()).toBe('2026-08-14T06:00:00Z');
+      expect(await runOf()).toBe('2026-08-14T06:00:00Z');
+      expect(standIn.forecastRequests - before).toBe(1);
+
+      // The 12Z run is served early, before the update cycle says so (the slot of 06Z lasts to 17Z).
+      standIn.runInitialisationSeconds = Date.UTC(2026, 7, 14, 12) / 1000;
+      now += 11 * 60_000; // past the metadata's reuse period (10 min)
+      expect(await runOf()).toBe('2026-08-14T06:00:00Z'); // not known yet: the entry still serves
+      expect(standIn.forecastRequests - before).toBe(1);
+      expect(await cache.latestRunTime()).toBe('2026-08-14T12:00:00Z');
+      expect(await runOf()).toBe('2026-08-14T12:00:00Z');
+      expect(await runOf()).toBe('2026-08-14T12:00:00Z');
+      expect(standIn.forecastRequests - before).toBe(2);
+
+      // A newer run announced, then the metadata stops answering: the series fetched again carries
+      // a derived (older) run label, and is kept: no request on every lookup until the next announcement.
+      standIn.runInitialisationSeconds = Date.UTC(2026, 7, 14, 18) / 1000;
+      now += 11 * 60_000;
+      expect(await cache.latestRunTime()).toBe('2026-08-14T18:00:00Z');
+      standIn.metadataFails = true;
+      now += 11 * 60_000;
+      expect(await runOf()).toBe('2026-08-14T06:00:00Z');
+      expect(await cache.latestRunTime()).toBeNull();
+      await runOf();
+      await runOf();
+      expect(standIn.forecastRequests - before).toBe(3);
+    } finally {
+      standIn.runInitialisationSeconds = initialRun;
+      standIn.metadataFails = false;
+    }
+  });
+
   it('refuses a bad config with the key named', () => {
     const upstream = new OpenMeteoSource({ baseUrl: standIn.baseUrl });
     expect(() => new ForecastCache(upstream, { model: 'gfs_seamless', gridDeg: -1 })).toThrow(/gridDeg/);
