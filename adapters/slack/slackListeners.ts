@@ -1,8 +1,9 @@
 import type { App } from '@slack/bolt';
+import { ACTION_IDS, type ActionId } from '../../src/render/message.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 
 /** Button action ids are the router's ids, optionally with a ":suffix" that keeps them unique in one message. */
-export const slackActionIdPattern = /^(mute-rule|show-detail)(?::.*)?$/;
+export const slackActionIdPattern = new RegExp(`^(${ACTION_IDS.join('|')})(?::.*)?$`);
 
 export interface SlackListenerOptions {
   commandName: string;
@@ -39,7 +40,7 @@ export function registerSlackListeners(app: App, options: SlackListenerOptions):
       logger.warn('a button press came without a response URL; not answered');
       return;
     }
-    const actionId = slackActionIdPattern.exec(action.action_id)?.[1] as 'mute-rule' | 'show-detail';
+    const actionId = slackActionIdPattern.exec(action.action_id)?.[1] as ActionId;
     const channelId = body.channel?.id ?? '';
     handOff({
       platform: 'slack',

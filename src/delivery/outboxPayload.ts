@@ -5,7 +5,7 @@
  * travels with the message and is checked again when the row is read back.
  */
 import { z } from 'zod';
-import type { Message } from '../render/message.ts';
+import { ACTION_IDS, type Message } from '../render/message.ts';
 import { footerOf } from '../render/safetyFooter.ts';
 
 export const OUTBOX_PAYLOAD_VERSION = 1;
@@ -13,7 +13,7 @@ export const OUTBOX_PAYLOAD_VERSION = 1;
 /** Largest PNG kept in a queued message; bigger ones are dropped (the row would bloat the table). */
 export const MAX_IMAGE_BYTES = 512 * 1024;
 
-const actionIdSchema = z.enum(['mute-rule', 'show-detail']);
+const actionIdSchema = z.enum(ACTION_IDS);
 
 const payloadSchema = z.object({
   v: z.literal(OUTBOX_PAYLOAD_VERSION),

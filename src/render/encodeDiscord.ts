@@ -1,4 +1,4 @@
-import type { Message, MessageAction } from './message.ts';
+import { isActionId, type Message, type MessageAction } from './message.ts';
 import { footerOf } from './safetyFooter.ts';
 import { INVENTED_DATA_NOTE } from './inventedDataNote.ts';
 import { SEVERITY_COLOURS } from './severityPalette.ts';
@@ -51,7 +51,7 @@ export function parseDiscordCustomId(customId: string): { actionId: MessageActio
   const cut = customId.indexOf(':');
   if (cut < 0) return null;
   const actionId = customId.slice(0, cut);
-  if (actionId !== 'mute-rule' && actionId !== 'show-detail') return null;
+  if (!isActionId(actionId)) return null;
   return { actionId, value: customId.slice(cut + 1) };
 }
 

@@ -29,9 +29,17 @@ export interface MessageImage {
   png: Uint8Array;
 }
 
+/** Every button's action id; adapters accept these and no others. */
+export const ACTION_IDS = ['mute-rule', 'end-mute', 'show-detail'] as const;
+export type ActionId = (typeof ACTION_IDS)[number];
+
+export function isActionId(text: string): text is ActionId {
+  return (ACTION_IDS as readonly string[]).includes(text);
+}
+
 /** A button. `actionId` is what the router receives back; `value` is opaque to adapters. */
 export interface MessageAction {
-  actionId: 'mute-rule' | 'show-detail';
+  actionId: ActionId;
   label: string;
   value: string;
 }

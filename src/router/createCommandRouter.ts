@@ -1,7 +1,7 @@
 import { buildHelpMessage } from '../render/helpMessage.ts';
 import type { Message } from '../render/message.ts';
 import { parseCommand, type Command } from './commandGrammar.ts';
-import { detailFromButton, muteRule } from './handlers/buttonActions.ts';
+import { detailFromButton, endMuteFromButton, muteRule } from './handlers/buttonActions.ts';
 import { lookUp, showDetail } from './handlers/forecastCommands.ts';
 import { forgetPlace, listPlaces, savePlace } from './handlers/placeCommands.ts';
 import { endMute, listRules, setThreshold } from './handlers/ruleCommands.ts';
@@ -101,6 +101,7 @@ export function createCommandRouter(dependencies: RouterDependencies, onFault: (
       return guarded(`action ${request.actionId}`, async () => {
         const context = await contextFor(request, request.actionId !== 'show-detail');
         if (request.actionId === 'mute-rule') return muteRule(context, request.value);
+        if (request.actionId === 'end-mute') return endMuteFromButton(context, request.value);
         if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
         return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);
       });

@@ -1,4 +1,4 @@
-import type { Message } from '../render/message.ts';
+import type { ActionId, Message } from '../render/message.ts';
 
 export type Platform = 'slack' | 'discord' | 'terminal';
 
@@ -20,7 +20,7 @@ export interface ActionRequest {
   teamId: string;
   channelId: string;
   userId: string;
-  actionId: 'mute-rule' | 'show-detail';
+  actionId: ActionId;
   value: string;
   canManageChannel: boolean;
 }

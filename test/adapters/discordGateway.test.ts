@@ -119,6 +119,12 @@ describe('Discord bot at the wire', () => {
     });
   });
 
+  it('routes the end-mute button of a mute notice', async () => {
+    const { token } = standIn.sendButton('end-mute:coupling|43.62,-115.48', MANAGE_CHANNELS);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(router.actions.at(-1)).toMatchObject({ actionId: 'end-mute', value: 'coupling|43.62,-115.48', canManageChannel: true });
+  });
+
   it('ignores other commands and unknown buttons without calling the router', async () => {
     const before = router.commands.length + router.actions.length;
     const other = standIn.sendCommand('someone-elses', 'x');

@@ -120,11 +120,13 @@ describe('Slack HTTP receiver at the wire', () => {
     });
   });
 
-  it('routes the mute button too', async () => {
-    const payload = buttonPayload('mute-rule', 'mute:coupling:cinder-flats', standIn.responseUrl('btn-2'));
-    expect((await postSigned(eventsUrl, { payload: JSON.stringify(payload) }, { secret })).status).toBe(200);
-    await standIn.waitForCall((call) => call.path === '/respond/btn-2');
-    expect(router.actions.at(-1)?.actionId).toBe('mute-rule');
+  it('routes the mute button and the end-mute button too (with a suffix that keeps ids unique in one message)', async () => {
+    for (const [actionId, key] of [['mute-rule', 'btn-2'], ['end-mute:1', 'btn-3']] as const) {
+      const payload = buttonPayload(actionId, 'coupling|43.62,-115.48', standIn.responseUrl(key));
+      expect((await postSigned(eventsUrl, { payload: JSON.stringify(payload) }, { secret })).status).toBe(200);
+      await standIn.waitForCall((call) => call.path === `/respond/${key}`);
+      expect(router.actions.at(-1)).toMatchObject({ actionId: actionId.split(':')[0], value: 'coupling|43.62,-115.48' });
+    }
   });
 });
 

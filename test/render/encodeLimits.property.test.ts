@@ -4,7 +4,7 @@ import { encodeForDiscord } from '../../src/render/encodeDiscord.ts';
 import { encodeForSlack } from '../../src/render/encodeSlack.ts';
 import { encodeForTerminal } from '../../src/render/encodeTerminal.ts';
 import { INVENTED_DATA_NOTE } from '../../src/render/inventedDataNote.ts';
-import type { Message } from '../../src/render/message.ts';
+import { ACTION_IDS, type Message } from '../../src/render/message.ts';
 import { buildMessage, SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
 import { discordProblems, hasLoneSurrogate, slackProblems } from './platformLimits.ts';
 
@@ -37,7 +37,7 @@ const messageArbitrary: fc.Arbitrary<Message> = fc
       { nil: undefined },
     ),
     actions: fc.array(
-      fc.record({ actionId: fc.constantFrom('mute-rule' as const, 'show-detail' as const), label: anyText(120), value: anyText(150) }),
+      fc.record({ actionId: fc.constantFrom(...ACTION_IDS), label: anyText(120), value: anyText(150) }),
       { maxLength: 40, size: 'max' },
     ),
     localLine: fc.option(anyText(600), { nil: undefined }),

@@ -10,6 +10,7 @@ import type { Message } from '../../src/render/message.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
 import { COMMAND_EXAMPLES } from '../../src/router/commandGrammar.ts';
 import { createCommandRouter } from '../../src/router/createCommandRouter.ts';
+import { NEEDS_MANAGE_CHANNEL } from '../../src/router/replies.ts';
 import type { RouterDependencies } from '../../src/router/routerContext.ts';
 import type { CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
 import { openStore } from '../../src/store/openStore.ts';
@@ -167,9 +168,10 @@ describe('the command router', () => {
     const channelId = 'unmute-ops';
     const at = (value: string) => router.handleAction({ platform: 'terminal', teamId: '', channelId, userId: 'fbann', actionId: 'mute-rule', value, canManageChannel: true });
     const notice = await at('hdw-above|43.62,-115.48');
-    // The mute notice says how to end it, in a form the command takes.
+    // The mute notice says how to end it, in a form the command takes, and has a button for it.
     const hint = /`(unmute [^`]+)`/.exec(text(notice))?.[1];
     expect(hint).toBe('unmute hdw-above 43.62,-115.48');
+    expect(notice.actions).toEqual([{ actionId: 'end-mute', label: 'End this mute', value: 'hdw-above|43.62,-115.48' }]);
     await at('hdw-above|44.3,-116.9');
     await router.handleCommand(request('save Cinder Ridge 43.62,-115.48', { channelId }));
     const channel = (await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId }))!;
@@ -205,6 +207,25 @@ describe('the command router', () => {
     expect(text(everywhere)).toContain('Mutes ended: 44.30°N 116.90°W.');
     expect(await muted('44.3000,-116.9000')).toBe(false);
     expect((await router.handleCommand(request('unmute hdw-above', { channelId }))).title).toMatch(/is not muted in this channel\. Nothing was changed/);
+    expect(faults).toEqual([]);
+  });
+
+  it("ends a mute from the notice's button, only for members who may change the channel", async () => {
+    const channelId = 'end-mute-ops';
+    const press = (actionId: 'mute-rule' | 'end-mute', value: string, canManageChannel = true) =>
+      router.handleAction({ platform: 'terminal', teamId: '', channelId, userId: 'fbann', actionId, value, canManageChannel });
+    const notice = await press('mute-rule', 'hdw-above|44.3,-116.9');
+    const channel = (await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId }))!;
+    const muted = () => store.rules.isMuted(channel.id, 'hdw-above', '44.3000,-116.9000', NOW_MS);
+    expect(await muted()).toBe(true);
+    const button = notice.actions[0]!;
+    expect((await press('end-mute', button.value, false)).title).toBe(NEEDS_MANAGE_CHANNEL);
+    expect((await press('end-mute', 'hdw-above|somewhere')).title).toMatch(/unknown place "somewhere".*Nothing was changed/);
+    expect(await muted()).toBe(true);
+    const ended = await press('end-mute', button.value);
+    expect(ended.title).toMatch(/alerts again at 44\.30°N 116\.90°W/);
+    expect(await muted()).toBe(false);
+    expect((await press('end-mute', button.value)).title).toMatch(/is not muted at 44\.30°N 116\.90°W/);
     expect(faults).toEqual([]);
   });
 

@@ -2,32 +2,59 @@ import { parseDetailValue, parseMuteValue } from '../../render/actionValues.ts';
 import type { Message } from '../../render/message.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
 import { isRuleId } from '../../watch/rules/rule.ts';
-import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
+import { buildMessage } from '../../render/safetyFooter.ts';
+import type { Rule } from '../../watch/rules/rule.ts';
+import { errorMessage, NEEDS_MANAGE_CHANNEL } from '../replies.ts';
 import { describePoint } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
 import { showDetailAt } from './forecastCommands.ts';
+import { endMute } from './ruleCommands.ts';
 
 /** How long the mute button silences a rule at a place (common practice: one operational period's half). */
 export const MUTE_DURATION_MS = 6 * 3_600_000;
 
-export async function muteRule(context: HandlerContext, rawValue: string): Promise<Message> {
-  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+/** The rule and point a mute button (or its end button) names, or the message that says what is wrong with it. */
+function mutedRuleAt(context: HandlerContext, rawValue: string): { ok: true; rule: Rule; latitudeDeg: number; longitudeDeg: number } | { ok: false; message: Message } {
   const parsed = parseMuteValue(rawValue);
-  if (!parsed.ok) return errorMessage(parsed.message, context.localFooterLine);
+  if (!parsed.ok) return { ok: false, message: errorMessage(parsed.message, context.localFooterLine) };
   const { ruleId, placeKey } = parsed.value;
   const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
-  if (!isRuleId(ruleId) || !rule) return errorMessage(`The button names an unknown rule "${ruleId}". Nothing was changed.`, context.localFooterLine);
+  if (!isRuleId(ruleId) || !rule) return { ok: false, message: errorMessage(`The button names an unknown rule "${ruleId}". Nothing was changed.`, context.localFooterLine) };
   const point = /^(-?\d+(?:\.\d+)?),(-?\d+(?:\.\d+)?)$/.exec(placeKey);
-  if (!point) return errorMessage(`The button names an unknown place "${placeKey}". Nothing was changed.`, context.localFooterLine);
-  const locationKey = locationKeyOf(Number(point[1]), Number(point[2]));
+  if (!point) return { ok: false, message: errorMessage(`The button names an unknown place "${placeKey}". Nothing was changed.`, context.localFooterLine) };
+  return { ok: true, rule, latitudeDeg: Number(point[1]), longitudeDeg: Number(point[2]) };
+}
+
+export async function muteRule(context: HandlerContext, rawValue: string): Promise<Message> {
+  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  const target = mutedRuleAt(context, rawValue);
+  if (!target.ok) return target.message;
+  const { rule, latitudeDeg, longitudeDeg } = target;
   const untilMs = context.nowMs() + MUTE_DURATION_MS;
-  await context.store.rules.setMute(context.channel.id, ruleId, locationKey, untilMs, context.nowMs());
+  await context.store.rules.setMute(context.channel.id, rule.id, locationKeyOf(latitudeDeg, longitudeDeg), untilMs, context.nowMs());
+  const place = describePoint(latitudeDeg, longitudeDeg);
   const lines = [
     'Other rules and places still alert. When the mute ends, its warnings that still stand are posted here again.',
     // The button's point, which the command resolves to the same location key.
-    `End it early: \`unmute ${ruleId} ${placeKey}\``,
+    `End it early with the button, or \`unmute ${rule.id} ${latitudeDeg},${longitudeDeg}\``,
   ];
-  return noticeMessage(`Muted "${rule.name}" at ${describePoint(Number(point[1]), Number(point[2]))} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`, lines, context.localFooterLine);
+  return buildMessage(
+    {
+      kind: 'notice',
+      title: `Muted "${rule.name}" at ${place} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`,
+      sections: [{ lines }],
+      actions: [{ actionId: 'end-mute', label: 'End this mute', value: rawValue }],
+    },
+    context.localFooterLine,
+  );
+}
+
+/** The mute notice's button: ends that mute now, as `unmute RULE LAT,LON` does. */
+export async function endMuteFromButton(context: HandlerContext, rawValue: string): Promise<Message> {
+  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  const target = mutedRuleAt(context, rawValue);
+  if (!target.ok) return target.message;
+  return endMute(context, target.rule.id, { kind: 'point', latitudeDeg: target.latitudeDeg, longitudeDeg: target.longitudeDeg });
 }
 
 export async function detailFromButton(context: HandlerContext, rawValue: string): Promise<Message> {
