@@ -7,10 +7,9 @@ import { interactionRestOptions } from '../discord/interactionRestOptions.ts';
 import { askRouter } from '../slack/askRouter.ts';
 import { answerClientOptions } from '../slack/slackClientOptions.ts';
 import { defaultSlackEncoder, type SlackEncoder } from '../slack/slackEncoder.ts';
-import { uploadSlackImages } from '../slack/uploadSlackImages.ts';
 import type { AnswerJob, Ask } from './answerJob.ts';
 import { editDeferredReply } from './discordDeferredReply.ts';
-import { postToResponseUrl } from './slackResponseUrl.ts';
+import { deliverSlackAnswer } from './slackAnswer.ts';
 
 export interface AnswerDeskOptions {
   router: CommandRouter;
@@ -29,15 +28,11 @@ export interface AnswerDesk {
   idle(): Promise<void>;
 }
 
-/** Errors and help go only to the person who asked; answers about a place go to the whole channel. */
-function slackVisibilityOf(message: Message): 'ephemeral' | 'in_channel' {
-  return message.kind === 'error' || message.kind === 'help' ? 'ephemeral' : 'in_channel';
-}
-
 /**
  * Answers acknowledged questions: asks the router, then delivers over plain HTTP, whichever thread
- * acknowledged them. Slack: the response URL (which works even where the bot is not a member), the
- * images following as a file upload into the channel. Discord: an edit of the deferred reply.
+ * acknowledged them. Slack: slackAnswer.ts (the response URL, which works even where the bot is not
+ * a member, with pictures uploaded after; a watch posted as the bot). Discord: an edit of the
+ * deferred reply.
  */
 export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   const { router, log } = options;
@@ -60,16 +55,7 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
       await editDeferredReply(discordRest, job.applicationId, job.interactionToken, discordEncode(message));
       return;
     }
-    const { text, blocks, files } = slackEncode(message);
-    const responseType = slackVisibilityOf(message);
-    await postToResponseUrl(job.responseUrl, { response_type: responseType, replace_original: false, text, blocks }, timeoutMs);
-    if (responseType !== 'in_channel' || files.length === 0) return;
-    if (!slackClient) {
-      log('warn', `images not attached in ${job.channelId}: no Slack bot token to upload with`);
-      return;
-    }
-    const uploaded = await uploadSlackImages(slackClient, job.channelId, files);
-    if (!uploaded.ok) log('warn', `images not attached in ${job.channelId}: ${uploaded.reason}`);
+    await deliverSlackAnswer({ responseUrl: job.responseUrl, channelId: job.channelId, client: slackClient, encode: slackEncode, timeoutMs, log }, message);
   }
 
   async function answerOnce(job: AnswerJob): Promise<void> {

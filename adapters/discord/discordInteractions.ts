@@ -10,6 +10,9 @@ export interface InteractionHandlerOptions {
   log: (level: 'warn' | 'error', text: string) => void;
 }
 
+/** What the bot's own posts in a channel need: alerts and summaries are embeds, some with a chart. */
+export const CHANNEL_POST_PERMISSIONS = [PermissionFlagsBits.ViewChannel, PermissionFlagsBits.SendMessages, PermissionFlagsBits.EmbedLinks, PermissionFlagsBits.AttachFiles];
+
 /** Only members who may manage the channel may change what it watches (Administrator included). */
 function canManage(interaction: ChatInputCommandInteraction | ButtonInteraction): boolean {
   return interaction.memberPermissions?.has(PermissionFlagsBits.ManageChannels) ?? false;
@@ -30,7 +33,9 @@ function askOf(interaction: Interaction, commandName: string): { interaction: Ch
   if (interaction.isChatInputCommand()) {
     if (interaction.commandName !== commandName) return null;
     const text = interaction.options.getString(discordTextOptionName) ?? '';
-    return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text } } };
+    // Discord sends the app's permissions in this channel with every interaction: no request needed.
+    const botCanPost = interaction.appPermissions?.has(CHANNEL_POST_PERMISSIONS);
+    return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text, ...(botCanPost === undefined ? {} : { botCanPost }) } } };
   }
   if (interaction.isButton()) {
     const parsed = parseDiscordCustomId(interaction.customId);

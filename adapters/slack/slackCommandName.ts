@@ -42,6 +42,11 @@ export function slackCommandName(): string {
   return readSlackManifest().features.slash_commands[0]!.command;
 }
 
+/** The app's name as the workspace shows it, e.g. for "/invite @Lapsewatch". */
+export function slackAppName(): string {
+  return readSlackManifest().display_information.name;
+}
+
 /** The command's description, reused for the Discord command so both platforms say the same. */
 export function slackCommandDescription(): string {
   return readSlackManifest().features.slash_commands[0]!.description;

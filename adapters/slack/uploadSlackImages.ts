@@ -1,8 +1,10 @@
 import type { WebClient } from '@slack/web-api';
 import type { SlackFile } from '../../src/render/encodeSlack.ts';
 import { multipartBody, nodeHttpFetch } from '../http/nodeHttpFetch.ts';
+import { slackPostOutcome } from './slackPostOutcome.ts';
 
-export type UploadResult = { ok: true } | { ok: false; reason: string };
+/** `channelGone`: Slack refused because the bot cannot post in the channel (not a member, archived...). */
+export type UploadResult = { ok: true } | { ok: false; reason: string; channelGone: boolean };
 
 /**
  * The bytes POSTed to Slack's upload URL: one multipart part named "body" with the file name
@@ -40,6 +42,7 @@ export async function uploadSlackImages(client: WebClient, channelId: string, fi
     await client.files.completeUploadExternal({ files: staged as [{ id: string; title: string }], channel_id: channelId, ...(threadTs ? { thread_ts: threadTs } : {}) });
     return { ok: true };
   } catch (error) {
-    return { ok: false, reason: error instanceof Error ? error.message : String(error) };
+    const outcome = slackPostOutcome(error);
+    return { ok: false, reason: outcome.kind === 'channel-gone' ? outcome.reason : error instanceof Error ? error.message : String(error), channelGone: outcome.kind === 'channel-gone' };
   }
 }

@@ -56,6 +56,12 @@ export interface Message {
   severity: 'info' | 'watch' | 'warning';
   /** Set when the data behind the message are invented (the demo source). */
   inventedData: boolean;
+  /**
+   * Set on an answer that turned on posts to the channel (alerts, summaries): the adapter checks
+   * that the bot can post there, and says so at once when it cannot, instead of the first alert
+   * failing unseen.
+   */
+  postsToChannel?: boolean;
   /** The standard safety footer; always present. */
   footer: string;
 }

@@ -23,7 +23,7 @@ export const localFooterLineSchema = z
   .max(LOCAL_FOOTER_LINE_MAX_CHARS, `the local footer line is longer than ${LOCAL_FOOTER_LINE_MAX_CHARS} characters`)
   .refine((line) => !/[\r\n]/.test(line), 'the local footer line must be one line, e.g. "Dispatch: Ridgeview ECC, channel 4 (invented)"');
 
-export type MessageParts = Omit<Message, 'footer' | 'images' | 'actions' | 'sections' | 'severity' | 'inventedData'> &
+export type MessageParts = Omit<Message, 'footer' | 'images' | 'actions' | 'sections' | 'severity' | 'inventedData' | 'postsToChannel'> &
   Partial<Pick<Message, 'images' | 'actions' | 'sections' | 'severity' | 'inventedData'>>;
 
 /** Builds the footer: the standard text, then at most one local line (made single-line and capped). */

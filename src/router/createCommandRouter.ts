@@ -36,7 +36,7 @@ const VERB_WRITES: Record<Command['verb'], boolean> = {
  * side is reported as such, with nothing changed and nothing thrown to the adapter.
  */
 export function createCommandRouter(dependencies: RouterDependencies, onFault: (error: unknown, what: string) => void = () => {}): CommandRouter {
-  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'>, writes: boolean): Promise<HandlerContext> {
+  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'> & Partial<Pick<CommandRequest, 'botCanPost'>>, writes: boolean): Promise<HandlerContext> {
     const target = { platform: request.platform, teamId: request.teamId, channelId: request.channelId };
     const channel = await channelForCommand(dependencies.store, target, dependencies.channelDefaults, dependencies.nowMs(), writes);
     return { ...dependencies, channel, request };

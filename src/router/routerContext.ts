@@ -25,5 +25,5 @@ export interface RouterDependencies {
 /** One request's view: the dependencies plus the channel the request came from. */
 export interface HandlerContext extends RouterDependencies {
   channel: Channel;
-  request: Pick<CommandRequest, 'platform' | 'userId' | 'canManageChannel'>;
+  request: Pick<CommandRequest, 'platform' | 'userId' | 'canManageChannel' | 'botCanPost'>;
 }

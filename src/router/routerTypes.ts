@@ -12,6 +12,11 @@ export interface CommandRequest {
   text: string;
   /** The user may change what the channel watches (Discord: Manage Channels; Slack: any member). */
   canManageChannel: boolean;
+  /**
+   * Whether the bot may post in the channel, where the platform says so with the command
+   * (Discord's app permissions); absent where it does not (Slack checks when it answers).
+   */
+  botCanPost?: boolean;
 }
 
 /** A button press coming back from a message. */

@@ -82,7 +82,15 @@ describe('Discord bot at the wire', () => {
       userId: '1100000000000000005',
       text: '44.1N,121.3W',
       canManageChannel: true,
+      botCanPost: true,
     });
+  });
+
+  it("says whether the bot may post in the channel, from the interaction's app permissions", async () => {
+    // View Channel and Send Messages, but no Embed Links or Attach Files: alerts would be refused.
+    const { token } = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, (1n << 10n) | SEND_MESSAGES);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
+    expect(router.commands.at(-1)).toMatchObject({ text: 'watch Cinder Flats', botCanPost: false });
   });
 
   it('passes an empty text when the option is left out', async () => {

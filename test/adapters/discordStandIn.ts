@@ -16,6 +16,8 @@ const botUser = { id: standInBotUserId, username: 'lapsewatch', discriminator: '
 /** Manage Channels is bit 4. */
 export const MANAGE_CHANNELS = 1n << 4n;
 export const SEND_MESSAGES = 1n << 11n;
+/** What the app itself may do in the stand-in's channel by default: view, send, embed links, attach files. */
+export const APP_CAN_POST = (1n << 10n) | SEND_MESSAGES | (1n << 14n) | (1n << 15n);
 
 export interface GatewayFrame {
   op: number;
@@ -75,12 +77,12 @@ export class DiscordStandIn extends RecordingServer {
     for (const socket of this.gatewaySockets) socket.send(frame);
   }
 
-  /** An INTERACTION_CREATE for our slash command, as a member with the given permissions. */
-  sendCommand(commandName: string, text: string | undefined, permissions: bigint = MANAGE_CHANNELS | SEND_MESSAGES): { id: string; token: string } {
+  /** An INTERACTION_CREATE for our slash command, as a member with the given permissions (and the app with its own). */
+  sendCommand(commandName: string, text: string | undefined, permissions: bigint = MANAGE_CHANNELS | SEND_MESSAGES, appPermissions: bigint = APP_CAN_POST): { id: string; token: string } {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
     this.dispatch('INTERACTION_CREATE', {
-      ...this.interactionBase(id, token, permissions),
+      ...this.interactionBase(id, token, permissions, appPermissions),
       type: 2,
       data: {
         id: '1100000000000000009',
@@ -97,7 +99,7 @@ export class DiscordStandIn extends RecordingServer {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
     this.dispatch('INTERACTION_CREATE', {
-      ...this.interactionBase(id, token, permissions),
+      ...this.interactionBase(id, token, permissions, APP_CAN_POST),
       type: 3,
       data: { custom_id: customId, component_type: 2 },
       message: this.messageObject(standInChannelId, { content: 'earlier answer' }),
@@ -120,7 +122,7 @@ export class DiscordStandIn extends RecordingServer {
     await super.stop();
   }
 
-  private interactionBase(id: string, token: string, permissions: bigint): object {
+  private interactionBase(id: string, token: string, permissions: bigint, appPermissions: bigint): object {
     return {
       id,
       token,
@@ -138,7 +140,7 @@ export class DiscordStandIn extends RecordingServer {
         flags: 0,
         permissions: String(permissions),
       },
-      app_permissions: String(SEND_MESSAGES),
+      app_permissions: String(appPermissions),
       locale: 'en-US',
       guild_locale: 'en-US',
       entitlements: [],

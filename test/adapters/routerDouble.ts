@@ -33,6 +33,11 @@ export function fixedLookup(text: string, withImage: boolean): Message {
   });
 }
 
+/** What the real router answers to a watch: a confirmation that turned on posts to the channel. */
+export function fixedWatchConfirmation(text: string): Message {
+  return { ...buildMessage({ kind: 'notice', title: `Watching "Cinder Flats" (test double answering "${text}"): alerts on.` }), postsToChannel: true };
+}
+
 export interface RouterDoubleOptions {
   /** Attach a PNG to lookups. */
   withImage?: boolean;
@@ -56,6 +61,7 @@ export class RouterDouble implements CommandRouter {
     this.notify();
     await this.pause();
     if (this.options.throws) throw new Error('router double told to throw');
+    if (request.text.startsWith('watch ')) return fixedWatchConfirmation(request.text);
     return fixedLookup(request.text, this.options.withImage ?? false);
   }
 

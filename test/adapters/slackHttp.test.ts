@@ -85,6 +85,34 @@ describe('Slack HTTP receiver at the wire', () => {
     expect(standIn.apiCalls('files.getUploadURLExternal')[0]?.body.filename).toBe('mixing-48h.png');
   });
 
+  it('posts a watch confirmation as the bot, into the channel its alerts will go to', async () => {
+    const posted = standIn.apiCalls('chat.postMessage').length;
+    await postSigned(eventsUrl, slashCommandForm(slackCommandName(), 'watch Cinder Flats', standIn.responseUrl('watch-1')), { secret });
+    const post = await standIn.waitForCall((call) => call.path === '/api/chat.postMessage' && JSON.stringify(call.body).includes('Watching'));
+    expect(standIn.apiCalls('chat.postMessage').length).toBe(posted + 1);
+    expect(post.body.channel).toBe('C0INVENTED');
+    expect(post.body.text).toContain(footerStart);
+    expect(standIn.callsTo(/^\/respond\/watch-1$/)).toHaveLength(0);
+  });
+
+  it('says at once when the bot cannot post in the channel, instead of alerts that never arrive', async () => {
+    standIn.failMethod('chat.postMessage', 'not_in_channel');
+    await postSigned(eventsUrl, slashCommandForm(slackCommandName(), 'watch Cinder Flats', standIn.responseUrl('watch-2')), { secret });
+    const answer = await standIn.waitForCall((call) => call.path === '/respond/watch-2' && call.body?.response_type === 'in_channel');
+    expect(answer.body.text).toContain('Watching');
+    const hint = await standIn.waitForCall((call) => call.path === '/respond/watch-2' && call.body?.response_type === 'ephemeral');
+    expect(hint.body.text).toContain('cannot post in this channel (Slack: not_in_channel)');
+    expect(hint.body.text).toContain('`/invite @Lapsewatch`');
+    expect(hint.body.text).toContain(footerStart);
+
+    // A lookup's chart refused the same way: the answer stands, and the asker learns why the chart is missing.
+    standIn.failMethod('files.completeUploadExternal', 'not_in_channel');
+    await postSigned(eventsUrl, slashCommandForm(slackCommandName(), '44.1N,121.3W', standIn.responseUrl('chart-1')), { secret });
+    const chartHint = await standIn.waitForCall((call) => call.path === '/respond/chart-1' && call.body?.response_type === 'ephemeral');
+    expect(chartHint.body.text).toContain('The chart is not attached: Lapsewatch cannot post in this channel (Slack: not_in_channel)');
+    expect(chartHint.body.text).toContain(footerStart);
+  });
+
   it('refuses a request with a bad signature and never calls the router', async () => {
     const before = router.commands.length;
     const form = slashCommandForm(slackCommandName(), 'bad-sig', standIn.responseUrl('bad-sig'));

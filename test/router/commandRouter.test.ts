@@ -10,7 +10,7 @@ import type { Message } from '../../src/render/message.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
 import { COMMAND_EXAMPLES } from '../../src/router/commandGrammar.ts';
 import { createCommandRouter } from '../../src/router/createCommandRouter.ts';
-import { NEEDS_MANAGE_CHANNEL } from '../../src/router/replies.ts';
+import { CANNOT_POST_HERE, NEEDS_MANAGE_CHANNEL } from '../../src/router/replies.ts';
 import type { RouterDependencies } from '../../src/router/routerContext.ts';
 import type { CommandRequest, CommandRouter } from '../../src/router/routerTypes.ts';
 import { openStore } from '../../src/store/openStore.ts';
@@ -97,7 +97,15 @@ describe('the command router', () => {
     expect(refused.kind).toBe('error');
     const channel = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
     expect(await store.watches.listWatches(channel!.id)).toEqual([]);
-    expect((await router.handleCommand(request('watch Sawback Lookout'))).title).toMatch(/Watching Sawback Lookout/);
+    // Where the platform says the bot may not post (Discord's app permissions), alerts could never arrive.
+    const cannotPost = await router.handleCommand(request('watch Sawback Lookout', { botCanPost: false }));
+    expect(cannotPost.title).toBe(CANNOT_POST_HERE);
+    expect(await store.watches.listWatches(channel!.id)).toEqual([]);
+    const watching = await router.handleCommand(request('watch Sawback Lookout', { botCanPost: true }));
+    expect(watching.title).toMatch(/Watching Sawback Lookout/);
+    // The adapter is told the answer turned on posts, so it can check it may post there.
+    expect(watching.postsToChannel).toBe(true);
+    expect((await router.handleCommand(request('watching'))).postsToChannel).toBeUndefined();
     expect(text(await router.handleCommand(request('watching')))).toContain('Sawback Lookout');
     expect((await router.handleCommand(request('unwatch Sawback Lookout'))).kind).toBe('notice');
     expect(await store.watches.listWatches(channel!.id)).toEqual([]);

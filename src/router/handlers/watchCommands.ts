@@ -1,11 +1,12 @@
 import type { Message } from '../../render/message.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
-import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
+import { CANNOT_POST_HERE, errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
 import { describePoint, resolvePlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
 
 export async function startWatching(context: HandlerContext, ref: PlaceRef): Promise<Message> {
   if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  if (context.request.botCanPost === false) return errorMessage(CANNOT_POST_HERE, context.localFooterLine);
   const resolved = await resolvePlace(context, ref);
   if (!resolved.ok) return errorMessage(resolved.error, context.localFooterLine);
   const { place } = resolved;
@@ -15,11 +16,12 @@ export async function startWatching(context: HandlerContext, ref: PlaceRef): Pro
     context.nowMs(),
   );
   const summary = context.channel.summaryLocalTime ? `Morning summary at ${context.channel.summaryLocalTime} local time.` : 'Morning summary is off (`morning 06:30` turns it on).';
-  return noticeMessage(
+  const confirmation = noticeMessage(
     created ? `Watching ${place.displayName}: alerts on.` : `Already watching ${place.displayName}; alerts stay on.`,
     [`The alerts that stand come in one message at the next check; after that, each new one on its own. Checked every half hour and after each new model run. ${summary}`, `Stop with \`unwatch ${place.savedName ?? `${place.latitudeDeg},${place.longitudeDeg}`}\`.`],
     context.localFooterLine,
   );
+  return { ...confirmation, postsToChannel: true };
 }
 
 export async function stopWatching(context: HandlerContext, ref: PlaceRef): Promise<Message> {
