@@ -1,4 +1,4 @@
-import { getPriority, setPriority } from 'node:os';
+import { setPriority } from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import { startModuleWorker } from '../../src/threads/moduleWorker.ts';
 import { niceOfThisThread } from './threadNice.ts';
@@ -48,9 +48,9 @@ const RESTARTS_PER_MINUTE = 5;
  * the process. Returns the nice value to go back to, or null when nothing was changed.
  */
 function lowerThisThread(nice: number, log: ReceiverThreadOptions['log']): number | null {
+  const before = niceOfThisThread();
+  if (before === null || nice <= before) return null;
   try {
-    const before = getPriority(0);
-    if (nice <= before) return null;
     setPriority(0, nice);
     return before;
   } catch (error) {
