@@ -1,9 +1,8 @@
 import { parseDetailValue, parseMuteValue } from '../../render/actionValues.ts';
 import type { Message } from '../../render/message.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
-import { isRuleId } from '../../watch/rules/rule.ts';
 import { buildMessage } from '../../render/safetyFooter.ts';
-import type { Rule } from '../../watch/rules/rule.ts';
+import { isRuleId, type Rule } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL } from '../replies.ts';
 import { describePoint } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
