@@ -37,13 +37,13 @@ function cannotPostMessage(answer: Message, what: 'alerts' | 'chart', reason: st
   const invite = `\`/invite @${slackAppName()}\``;
   const title =
     what === 'alerts'
-      ? `Lapsewatch cannot post in this channel (${reason}), so the alerts and morning summaries just turned on would not arrive. Invite it (${invite}), then watch again.`
+      ? `Lapsewatch cannot post in this channel (${reason}), so its alerts and morning summaries would not arrive. Invite it (${invite}), then give the command again.`
       : `The chart is not attached: Lapsewatch cannot post in this channel (${reason}). Invite it (${invite}) for charts, alerts and morning summaries here.`;
   return { ...buildMessage({ kind: 'error', title, sections: [] }), footer: answer.footer };
 }
 
 /**
- * One Slack answer. An answer that turned on posts to the channel (a watch) is posted as the bot,
+ * One Slack answer. An answer that turned on posts to the channel (a watch, a summary time) is posted as the bot,
  * into the channel, as its alerts will be: if Slack refuses that because the bot cannot post there,
  * the answer goes through the response URL and the asker is told how to fix it, at once rather
  * than by alerts that never come. Other answers go through the response URL, their pictures

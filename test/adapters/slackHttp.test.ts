@@ -101,7 +101,7 @@ describe('Slack HTTP receiver at the wire', () => {
     const answer = await standIn.waitForCall((call) => call.path === '/respond/watch-2' && call.body?.response_type === 'in_channel');
     expect(answer.body.text).toContain('Watching');
     const hint = await standIn.waitForCall((call) => call.path === '/respond/watch-2' && call.body?.response_type === 'ephemeral');
-    expect(hint.body.text).toContain('cannot post in this channel (Slack: not_in_channel)');
+    expect(hint.body.text).toContain('cannot post in this channel (Slack: not_in_channel), so its alerts and morning summaries would not arrive');
     expect(hint.body.text).toContain('`/invite @Lapsewatch`');
     expect(hint.body.text).toContain(footerStart);
 

@@ -106,6 +106,13 @@ describe('the command router', () => {
     // The adapter is told the answer turned on posts, so it can check it may post there.
     expect(watching.postsToChannel).toBe(true);
     expect((await router.handleCommand(request('watching'))).postsToChannel).toBeUndefined();
+    // A morning summary time is the same kind of change; turning summaries off is not.
+    const channelNow = await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' });
+    expect((await router.handleCommand(request('morning 05:45', { botCanPost: false }))).title).toBe(CANNOT_POST_HERE);
+    expect((await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId: 'ops' }))!.summaryLocalTime).toBe(channelNow!.summaryLocalTime);
+    expect((await router.handleCommand(request('morning 05:45'))).postsToChannel).toBe(true);
+    expect((await router.handleCommand(request('morning off', { botCanPost: false }))).postsToChannel).toBeUndefined();
+    await router.handleCommand(request(`morning ${channelNow!.summaryLocalTime ?? 'off'}`));
     expect(text(await router.handleCommand(request('watching')))).toContain('Sawback Lookout');
     expect((await router.handleCommand(request('unwatch Sawback Lookout'))).kind).toBe('notice');
     expect(await store.watches.listWatches(channel!.id)).toEqual([]);
