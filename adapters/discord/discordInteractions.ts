@@ -10,8 +10,13 @@ export interface InteractionHandlerOptions {
   log: (level: 'warn' | 'error', text: string) => void;
 }
 
-/** What the bot's own posts in a channel need: alerts and summaries are embeds, some with a chart. */
-export const CHANNEL_POST_PERMISSIONS = [PermissionFlagsBits.ViewChannel, PermissionFlagsBits.SendMessages, PermissionFlagsBits.EmbedLinks, PermissionFlagsBits.AttachFiles];
+/**
+ * What the bot's own posts in a channel need: alerts and summaries are embeds, some with a chart.
+ * In a thread, Discord asks for Send Messages in Threads instead of Send Messages.
+ */
+export function channelPostPermissions(inThread: boolean): bigint[] {
+  return [PermissionFlagsBits.ViewChannel, inThread ? PermissionFlagsBits.SendMessagesInThreads : PermissionFlagsBits.SendMessages, PermissionFlagsBits.EmbedLinks, PermissionFlagsBits.AttachFiles];
+}
 
 /** Only members who may manage the channel may change what it watches (Administrator included). */
 function canManage(interaction: ChatInputCommandInteraction | ButtonInteraction): boolean {
@@ -34,7 +39,10 @@ function askOf(interaction: Interaction, commandName: string): { interaction: Ch
     if (interaction.commandName !== commandName) return null;
     const text = interaction.options.getString(discordTextOptionName) ?? '';
     // Discord sends the app's permissions in this channel with every interaction: no request needed.
-    const botCanPost = interaction.appPermissions?.has(CHANNEL_POST_PERMISSIONS);
+    // Whether the channel is a thread comes from the cache the Guilds intent keeps (threads
+    // included); a channel missing from it is judged as a channel.
+    const inThread = interaction.channel?.isThread() ?? false;
+    const botCanPost = interaction.appPermissions?.has(channelPostPermissions(inThread));
     return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text, ...(botCanPost === undefined ? {} : { botCanPost }) } } };
   }
   if (interaction.isButton()) {

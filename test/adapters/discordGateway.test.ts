@@ -93,6 +93,24 @@ describe('Discord bot at the wire', () => {
     expect(router.commands.at(-1)).toMatchObject({ text: 'watch Cinder Flats', botCanPost: false });
   });
 
+  it('in a thread, judges posting by Send Messages in Threads rather than Send Messages', async () => {
+    const threadId = standIn.sendGuildWithThread();
+    const VIEW_EMBED_ATTACH = (1n << 10n) | (1n << 14n) | (1n << 15n);
+    const SEND_IN_THREADS = 1n << 38n;
+    const thread = { id: threadId, type: 11 };
+    // Send Messages alone does not let the bot post in a thread: alerts there would be refused.
+    const sendOnly = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, VIEW_EMBED_ATTACH | SEND_MESSAGES, thread);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(sendOnly.token));
+    expect(router.commands.at(-1)).toMatchObject({ channelId: threadId, botCanPost: false });
+    const threadsOnly = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, VIEW_EMBED_ATTACH | SEND_IN_THREADS, thread);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(threadsOnly.token));
+    expect(router.commands.at(-1)).toMatchObject({ channelId: threadId, botCanPost: true });
+    // The same permissions in the parent channel are not enough.
+    const inChannel = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, VIEW_EMBED_ATTACH | SEND_IN_THREADS);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(inChannel.token));
+    expect(router.commands.at(-1)).toMatchObject({ channelId: standInChannelId, botCanPost: false });
+  });
+
   it('passes an empty text when the option is left out', async () => {
     const { token } = standIn.sendCommand(discordCommandName(), undefined);
     await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));

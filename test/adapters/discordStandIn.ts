@@ -77,12 +77,52 @@ export class DiscordStandIn extends RecordingServer {
     for (const socket of this.gatewaySockets) socket.send(frame);
   }
 
+  /**
+   * A GUILD_CREATE for the stand-in's guild with its text channel and one thread under it, as
+   * Discord sends it to a client with the Guilds intent; returns the thread's id.
+   */
+  sendGuildWithThread(): string {
+    const threadId = '1100000000000000044';
+    const channel = { id: standInChannelId, type: 0, guild_id: standInGuildId, name: 'invented-incident', position: 0, permission_overwrites: [], parent_id: null };
+    const thread = {
+      id: threadId,
+      type: 11,
+      guild_id: standInGuildId,
+      parent_id: standInChannelId,
+      name: 'cinder-flats-ops (invented)',
+      owner_id: '1100000000000000005',
+      message_count: 0,
+      member_count: 1,
+      thread_metadata: { archived: false, auto_archive_duration: 1440, archive_timestamp: new Date(0).toISOString(), locked: false },
+    };
+    this.dispatch('GUILD_CREATE', {
+      id: standInGuildId,
+      name: 'Invented fire district',
+      icon: null,
+      owner_id: '1100000000000000005',
+      unavailable: false,
+      roles: [],
+      emojis: [],
+      features: [],
+      members: [],
+      channels: [channel],
+      threads: [thread],
+    });
+    return threadId;
+  }
+
   /** An INTERACTION_CREATE for our slash command, as a member with the given permissions (and the app with its own). */
-  sendCommand(commandName: string, text: string | undefined, permissions: bigint = MANAGE_CHANNELS | SEND_MESSAGES, appPermissions: bigint = APP_CAN_POST): { id: string; token: string } {
+  sendCommand(
+    commandName: string,
+    text: string | undefined,
+    permissions: bigint = MANAGE_CHANNELS | SEND_MESSAGES,
+    appPermissions: bigint = APP_CAN_POST,
+    channel: { id: string; type: number } = { id: standInChannelId, type: 0 },
+  ): { id: string; token: string } {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
     this.dispatch('INTERACTION_CREATE', {
-      ...this.interactionBase(id, token, permissions, appPermissions),
+      ...this.interactionBase(id, token, permissions, appPermissions, channel),
       type: 2,
       data: {
         id: '1100000000000000009',
@@ -99,7 +139,7 @@ export class DiscordStandIn extends RecordingServer {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
     this.dispatch('INTERACTION_CREATE', {
-      ...this.interactionBase(id, token, permissions, APP_CAN_POST),
+      ...this.interactionBase(id, token, permissions, APP_CAN_POST, { id: standInChannelId, type: 0 }),
       type: 3,
       data: { custom_id: customId, component_type: 2 },
       message: this.messageObject(standInChannelId, { content: 'earlier answer' }),
@@ -122,15 +162,15 @@ export class DiscordStandIn extends RecordingServer {
     await super.stop();
   }
 
-  private interactionBase(id: string, token: string, permissions: bigint, appPermissions: bigint): object {
+  private interactionBase(id: string, token: string, permissions: bigint, appPermissions: bigint, channel: { id: string; type: number }): object {
     return {
       id,
       token,
       application_id: standInApplicationId,
       version: 1,
       guild_id: standInGuildId,
-      channel_id: standInChannelId,
-      channel: { id: standInChannelId, type: 0, guild_id: standInGuildId, name: 'invented-incident', permissions: String(permissions) },
+      channel_id: channel.id,
+      channel: { id: channel.id, type: channel.type, guild_id: standInGuildId, name: 'invented-incident', permissions: String(permissions) },
       member: {
         user: { id: '1100000000000000005', username: 'crewlead', discriminator: '0', global_name: 'Crew Lead (invented)', avatar: null },
         roles: [],
