@@ -8,7 +8,7 @@ import { endMute, listRules, setThreshold } from './handlers/ruleCommands.ts';
 import { setMorningTime, setUnits } from './handlers/settingsCommands.ts';
 import { listWatching, startWatching, stopWatching } from './handlers/watchCommands.ts';
 import { channelForCommand } from './channelForCommand.ts';
-import { errorMessage } from './replies.ts';
+import { errorMessage, postsStoppedSection } from './replies.ts';
 import type { HandlerContext, RouterDependencies } from './routerContext.ts';
 import type { ActionRequest, CommandRequest, CommandRouter } from './routerTypes.ts';
 
@@ -36,10 +36,16 @@ const VERB_WRITES: Record<Command['verb'], boolean> = {
  * side is reported as such, with nothing changed and nothing thrown to the adapter.
  */
 export function createCommandRouter(dependencies: RouterDependencies, onFault: (error: unknown, what: string) => void = () => {}): CommandRouter {
-  async function contextFor(request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'> & Partial<Pick<CommandRequest, 'botCanPost'>>, writes: boolean): Promise<HandlerContext> {
+  /** Runs `work` for the request's channel; the first answer in a channel that had been marked inactive says what that stopped. */
+  async function inChannel(
+    request: Pick<CommandRequest, 'platform' | 'teamId' | 'channelId' | 'userId' | 'canManageChannel'> & Partial<Pick<CommandRequest, 'botCanPost'>>,
+    writes: boolean,
+    work: (context: HandlerContext) => Promise<Message>,
+  ): Promise<Message> {
     const target = { platform: request.platform, teamId: request.teamId, channelId: request.channelId };
-    const channel = await channelForCommand(dependencies.store, target, dependencies.channelDefaults, dependencies.nowMs(), writes);
-    return { ...dependencies, channel, request };
+    const { channel, inactiveSinceMs } = await channelForCommand(dependencies.store, target, dependencies.channelDefaults, dependencies.nowMs(), writes);
+    const message = await work({ ...dependencies, channel, request });
+    return inactiveSinceMs === null ? message : { ...message, sections: [...message.sections, postsStoppedSection(inactiveSinceMs)] };
   }
 
   async function guarded(what: string, work: () => Promise<Message>): Promise<Message> {
@@ -95,16 +101,17 @@ export function createCommandRouter(dependencies: RouterDependencies, onFault: (
       const parsed = parseCommand(typeof request.text === 'string' ? request.text : '');
       if (!parsed.ok) return Promise.resolve(errorMessage(parsed.error, dependencies.localFooterLine));
       const { command } = parsed;
-      return guarded(`command ${command.verb}`, async () => run(await contextFor(request, VERB_WRITES[command.verb]), command));
+      return guarded(`command ${command.verb}`, () => inChannel(request, VERB_WRITES[command.verb], (context) => run(context, command)));
     },
     handleAction(request: ActionRequest): Promise<Message> {
-      return guarded(`action ${request.actionId}`, async () => {
-        const context = await contextFor(request, request.actionId !== 'show-detail');
-        if (request.actionId === 'mute-rule') return muteRule(context, request.value);
-        if (request.actionId === 'end-mute') return endMuteFromButton(context, request.value);
-        if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
-        return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);
-      });
+      return guarded(`action ${request.actionId}`, () =>
+        inChannel(request, request.actionId !== 'show-detail', async (context) => {
+          if (request.actionId === 'mute-rule') return muteRule(context, request.value);
+          if (request.actionId === 'end-mute') return endMuteFromButton(context, request.value);
+          if (request.actionId === 'show-detail') return detailFromButton(context, request.value);
+          return errorMessage(`Unknown button "${String(request.actionId)}". Nothing was changed.`, dependencies.localFooterLine);
+        }),
+      );
     },
   };
 }

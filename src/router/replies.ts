@@ -19,3 +19,19 @@ export const CANNOT_POST_HERE =
 
 export const NEEDS_MANAGE_CHANNEL =
   'Only members who can manage this channel may change what it watches or its settings. Nothing was changed.';
+
+/**
+ * Added to the first answer in a channel that had been marked inactive: the platform refused the
+ * bot's posts there (removed, or a permission taken away), the outbox switched its watches off, and
+ * nobody could be told then. Any command makes the channel active again; the watches stay off.
+ */
+export function postsStoppedSection(inactiveSinceMs: number): MessageSection {
+  const since = new Date(inactiveSinceMs).toISOString().slice(0, 16).replace('T', ' ');
+  return {
+    heading: 'Alerts here had stopped',
+    lines: [
+      `Since ${since}Z Lapsewatch could not post in this channel (it was removed, or lost a permission), so this channel's watches were switched off.`,
+      'Make sure it can post here, then `watch PLACE` again; `watching` lists what is on.',
+    ],
+  };
+}

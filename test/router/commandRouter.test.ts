@@ -143,9 +143,21 @@ describe('the command router', () => {
     const saved = await store.channels.findChannel(target);
     expect([saved?.unitSystem, saved?.active]).toEqual(['us', true]);
     expect(text(await router.handleCommand(request('Alder Sink', fresh)))).toMatch(/ ft/);
-    await store.channels.markChannelInactive(target, NOW_MS);
-    await router.handleCommand(request('Alder Sink', fresh));
+    expect(text(await router.handleCommand(request('Alder Sink', fresh)))).not.toMatch(/Alerts here had stopped/);
+    // The platform refused a post here: the outbox marked the channel inactive, its watches off.
+    await store.channels.markChannelInactive(target, NOW_MS - 3 * 3_600_000);
+    const first = text(await router.handleCommand(request('Alder Sink', fresh)));
     expect((await store.channels.findChannel(target))?.active).toBe(true);
+    // The first answer after says so, once; the lookup itself is intact.
+    expect(first).toMatch(/Alder Sink/);
+    expect(first).toMatch(/Alerts here had stopped/);
+    expect(first).toContain('Since 2026-08-14 12:00Z Lapsewatch could not post in this channel');
+    expect(text(await router.handleCommand(request('Alder Sink', fresh)))).not.toMatch(/Alerts here had stopped/);
+    // A button press can be the first, too.
+    await store.channels.markChannelInactive(target, NOW_MS);
+    const pressed = await router.handleAction({ platform: 'terminal', teamId: '', channelId: fresh.channelId, userId: 'fbann', actionId: 'mute-rule', value: 'hdw-above|44.3,-116.9', canManageChannel: true });
+    expect(text(pressed)).toMatch(/Muted[\s\S]*Alerts here had stopped/);
+    expect(faults).toEqual([]);
   });
 
   it('sets units and the morning time', async () => {
