@@ -1,7 +1,7 @@
 // One alert-check cycle end to end: the invented demo forecast, the real assessment, crossings and
 // alert messages, a real SQLite store. Two replicas tick at the same instant.
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createAlertCheckCycle, realAlertCheckDeps } from '../../src/schedule/alertCheckCycle.ts';
+import { createAlertCheckCycle, realAlertCheckDeps, type AlertCheckDeps } from '../../src/schedule/alertCheckCycle.ts';
 import { channelRuleSet } from '../../src/schedule/ruleSet.ts';
 import { payloadToMessage } from '../../src/delivery/outboxPayload.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
@@ -20,6 +20,11 @@ function messageOf(row: { payload: unknown }): Message {
   const decoded = payloadToMessage(row.payload);
   if (!decoded.ok) throw new Error('an outbox payload did not decode');
   return decoded.message;
+}
+
+/** The real check chain (assessment, crossings, messages) over `fetchSeries`, as one worker. */
+function realCycle(store: Store, fetchSeries: AlertCheckDeps['fetchSeries']) {
+  return createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
 }
 
 async function allOutbox(store: Store): Promise<Array<{ dedupeKey: string; target: string; payload: unknown }>> {
@@ -76,7 +81,7 @@ describe('alert-check cycle', () => {
     await store.watches.markAlertChecked(kestrelKey, MORNING - 3600_000);
     await channelWatching(store, slackTarget('C0NEW'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
-    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle(store, source.fetchSeries);
     const report = await cycle.run(MORNING);
     const rows = await store.outbox.claimDueOutbox('inspector', 10_000, 1, MORNING + 10 * 86_400_000);
     const ordered = rows.filter((row) => row.target.channelId === 'C0ORD');
@@ -109,7 +114,7 @@ describe('alert-check cycle', () => {
       if (failures-- > 0) throw new Error('injected: the store went away');
       return store.watches.markAlertChecked(...args);
     };
-    const cycle = createAlertCheckCycle({ store: { ...store, watches }, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle({ ...store, watches }, source.fetchSeries);
     const failed = await cycle.run(MORNING);
     expect(failed.errors).toBe(1);
     expect(failed.digestsQueued).toBe(1);
@@ -123,7 +128,7 @@ describe('alert-check cycle', () => {
   it('checks again only after the interval, and an unchanged forecast queues nothing new', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
-    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle(store, source.fetchSeries);
     const first = await cycle.run(MORNING);
     expect(first.crossingsRecorded).toBeGreaterThan(0);
     expect((await cycle.run(MORNING + 10 * 60_000)).placesDue).toBe(0);
@@ -137,7 +142,7 @@ describe('alert-check cycle', () => {
   it('a channel that starts watching a place others watch is checked at the next tick, and told what stands', async () => {
     await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
     const source = countingDemoSource();
-    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle(store, source.fetchSeries);
     const first = await cycle.run(MORNING);
     expect(first.crossingsRecorded).toBeGreaterThan(0);
     const toA = await allOutbox(store);
@@ -168,7 +173,7 @@ describe('alert-check cycle', () => {
     const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
     await store.rules.setMute(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 6 * 3600_000, MORNING);
     const source = countingDemoSource();
-    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: source.fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle(store, source.fetchSeries);
     const headline = (rows: Array<{ dedupeKey: string; target: string }>, target: string) =>
       rows.filter((row) => row.target === target && row.dedupeKey.includes('|mixing-reaches-dry-layer|')).map((row) => row.dedupeKey.split('|').slice(1, 5).join('|'));
 
@@ -206,7 +211,7 @@ describe('alert-check cycle', () => {
     const b = await channelWatching(store, slackTarget('C0BBB'), [KESTREL_BENCH], MORNING);
     const kestrelKey = locationKeyOf(KESTREL_BENCH.latitudeDeg, KESTREL_BENCH.longitudeDeg);
     await store.rules.setMute(b.id, 'mixing-reaches-dry-layer', kestrelKey, MORNING + 6 * 3600_000, MORNING);
-    const cycle = createAlertCheckCycle({ store, deps: realAlertCheckDeps({ fetchSeries: countingDemoSource().fetchSeries, defaultRules: shippedRules() }), workerId: 'w', logger: capturingLogger().logger });
+    const cycle = realCycle(store, countingDemoSource().fetchSeries);
     const headlineToB = async (): Promise<Array<{ dedupeKey: string }>> => (await allOutbox(store)).filter((row) => row.target === 'slack:C0BBB' && row.dedupeKey.includes('|mixing-reaches-dry-layer|'));
 
     await cycle.run(MORNING);
