@@ -5,7 +5,9 @@
 // and, side by side, for the router double (fixed answer with a tiny PNG), so the figures separate
 // what the adapters cost from what the router and its pictures cost. The platform stand-ins and the
 // load generator run in a child process (chatLoadProcess.ts), so this process holds only the bot
-// (the Bolt app or the discord.js client, and the router): its CPU and memory are the bot's.
+// (the Bolt app or the discord.js client, and the router): its CPU and memory are the bot's. The
+// child still shares the bot's cores, so the Slack generator is a bare HTTP client
+// (keepAliveCaller.ts) that takes as little of them as it can.
 // Each is run twice: with the receivers in their own worker thread, as `npm start` runs them, and
 // with everything in one thread, so the two sit side by side.
 // Run: npx tsx bench/chatLoad.ts [--real-only] (LAPSEWATCH_BENCH_OPEN_CONNECTIONS=1: Slack's

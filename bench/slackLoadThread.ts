@@ -6,8 +6,9 @@
  * milliseconds (performance.timeOrigin + performance.now()), comparable between the two threads.
  */
 import { parentPort } from 'node:worker_threads';
-import { postSigned, slashCommandForm } from '../test/adapters/slackSigning.ts';
+import { signedFormHeaders, slashCommandForm } from '../test/adapters/slackSigning.ts';
 import type { LoadRequest } from './chatLoadProcess.ts';
+import { KeepAliveCaller } from './keepAliveCaller.ts';
 import { pool, waitUntil } from './loadPacing.ts';
 
 export type SlackLoadSettings = Required<Omit<LoadRequest, 'botUrl' | 'secret'>> & {
@@ -28,6 +29,24 @@ export interface SlackLoadResult {
 
 const nowMs = (): number => performance.timeOrigin + performance.now();
 
+/**
+ * One caller per concurrent worker, kept across loads: each holds its keep-alive connection, so a
+ * connection opened by an untimed load (the warm-up's, or the one that opens them before the clock)
+ * carries that caller's timed commands, and the others open theirs in the first timed burst.
+ */
+const callers = new Map<string, KeepAliveCaller>();
+
+function callerFor(url: URL, workerId: number): KeepAliveCaller {
+  // Each run starts a bot of its own on a port of its own.
+  const key = `${url.host} ${workerId}`;
+  let caller = callers.get(key);
+  if (!caller) {
+    caller = new KeepAliveCaller(url.hostname, Number(url.port));
+    callers.set(key, caller);
+  }
+  return caller;
+}
+
 const answered = new Map<string, (answer: { atMs: number; inChannel: boolean }) => void>();
 const uploaded = new Map<string, (atMs: number) => void>();
 
@@ -35,6 +54,7 @@ const uploaded = new Map<string, (atMs: number) => void>();
 async function run(settings: SlackLoadSettings): Promise<SlackLoadResult> {
   const result: SlackLoadResult = { samples: [], failures: 0, firstFailure: null };
   const deadline = Date.now() + settings.deadlineMs;
+  const url = new URL(settings.botUrl);
   // One channel per concurrent caller (20 incident channels asking again and again, as on a busy
   // fire): a caller waits for its answer before asking again, so an upload is matched by its channel.
   await pool(settings.total, settings.concurrency, deadline, async (index, workerId) => {
@@ -45,7 +65,8 @@ async function run(settings: SlackLoadSettings): Promise<SlackLoadResult> {
     const imaged = new Promise<number>((resolve) => uploaded.set(channelId, resolve));
     try {
       const t0 = nowMs();
-      const ack = await postSigned(settings.botUrl, slashCommandForm(settings.commandName, text, `${settings.responseUrlPrefix}${key}`, channelId), { secret: settings.secret });
+      const body = new URLSearchParams(slashCommandForm(settings.commandName, text, `${settings.responseUrlPrefix}${key}`, channelId)).toString();
+      const ack = await callerFor(url, workerId).post(url.pathname, signedFormHeaders(body, { secret: settings.secret }), body);
       const ackAt = nowMs();
       if (ack.status !== 200) throw new Error(`ack ${ack.status}`);
       const response = await waitUntil(responded, deadline, `response-URL post for "${text}"`);

@@ -14,23 +14,20 @@ export interface SignedPostOptions {
   signature?: string;
 }
 
-/**
- * POSTs a form body to the receiver, signed; resolves with the HTTP status and body. Sent through
- * the node:http transport rather than fetch: the chat benchmark's load generator shares the bot's
- * two cores, and fetch cost it four times the CPU per command.
- */
+/** The headers Slack sends with a signed form body. */
+export function signedFormHeaders(body: string, options: SignedPostOptions): Record<string, string> {
+  const timestampSec = options.timestampSec ?? Math.floor(Date.now() / 1000);
+  return {
+    'content-type': 'application/x-www-form-urlencoded',
+    'x-slack-request-timestamp': String(timestampSec),
+    'x-slack-signature': options.signature ?? slackSignature(options.secret, timestampSec, body),
+  };
+}
+
+/** POSTs a form body to the receiver, signed; resolves with the HTTP status and body. */
 export async function postSigned(url: string, form: Record<string, string>, options: SignedPostOptions): Promise<{ status: number; text: string }> {
   const body = new URLSearchParams(form).toString();
-  const timestampSec = options.timestampSec ?? Math.floor(Date.now() / 1000);
-  const response = await nodeHttpFetch(url, {
-    method: 'POST',
-    headers: {
-      'content-type': 'application/x-www-form-urlencoded',
-      'x-slack-request-timestamp': String(timestampSec),
-      'x-slack-signature': options.signature ?? slackSignature(options.secret, timestampSec, body),
-    },
-    body,
-  });
+  const response = await nodeHttpFetch(url, { method: 'POST', headers: signedFormHeaders(body, options), body });
   return { status: response.status, text: await response.text() };
 }
 
