@@ -27,7 +27,7 @@ function digestLine(alert: AlertContent, units: UnitSystem): string {
  * one post each (a first check can find a dozen over 48 hours, which would bury the channel):
  * a headline with the count, the alerts in forecast order (the most severe first within an hour),
  * what the most severe one means on the ground, the model run, and mute buttons for the first
- * rules. `alerts` are those of one place and one forecast run, already in forecast order.
+ * rules (the others by `mute RULE LAT,LON`). `alerts` are those of one place and one forecast run, already in forecast order.
  */
 export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: UnitSystem, options: RenderOptions = {}): Message {
   const first = alerts[0];
@@ -47,6 +47,10 @@ export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: 
     if (actions.some((action) => action.value === value)) continue;
     actions.push({ actionId: 'mute-rule', label: `Mute "${alert.ruleName}" here for 6 h`, value });
   }
+  // Rules beyond the buttons can be muted by command, at the digest's point.
+  const buttoned = new Set(actions.map((action) => action.value.split('|')[0]));
+  const unbuttoned = [...new Set(muteOrder.map((alert) => alert.ruleId))].filter((ruleId) => !buttoned.has(ruleId));
+  const muteOthers = unbuttoned.length === 0 ? [] : [`Mute another rule here: \`mute ${unbuttoned[0]} ${first.latitude},${first.longitude}\`${unbuttoned.length > 1 ? ` (or ${unbuttoned.slice(1).join(', ')})` : ''}.`];
   return buildMessage(
     {
       // A summary of alerts, not an alert: an alert is a headline and at most four lines.
@@ -56,7 +60,7 @@ export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: 
       inventedData: alerts.some((alert) => alert.invented),
       sections: [
         { lines: shown },
-        { lines: [groundMeaning(meaningOf), 'New crossings and material changes come as alerts of their own.', sourceLine(first.model, first.runTime, first.sourceName, first.invented)] },
+        { lines: [groundMeaning(meaningOf), 'New crossings and material changes come as alerts of their own.', ...muteOthers, sourceLine(first.model, first.runTime, first.sourceName, first.invented)] },
       ],
       actions,
     },

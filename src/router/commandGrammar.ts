@@ -19,6 +19,7 @@ export type Command =
   | { verb: 'watching' }
   | { verb: 'rules' }
   | { verb: 'threshold'; ruleId: string; value: number | 'default' }
+  | { verb: 'mute'; ruleId: string; place: PlaceRef }
   | { verb: 'unmute'; ruleId: string; place: PlaceRef | null }
   | { verb: 'morning'; localTime: string | null }
   | { verb: 'units'; unitSystem: 'metric' | 'us' }
@@ -38,6 +39,7 @@ export const COMMAND_EXAMPLES: Record<Verb, { usage: string; example: string; wh
   watching: { usage: 'watching', example: 'watching', what: 'what this channel watches' },
   rules: { usage: 'rules', example: 'rules', what: "alert rules and this channel's thresholds" },
   threshold: { usage: 'threshold RULE VALUE|default', example: 'threshold hdw-above 300', what: "change a rule's threshold for this channel" },
+  mute: { usage: 'mute RULE PLACE|LAT,LON', example: 'mute hdw-above Cinder Ridge', what: "hold a rule's alerts at a place for 6 hours" },
   unmute: { usage: 'unmute RULE [PLACE|LAT,LON]', example: 'unmute hdw-above Cinder Ridge', what: 'end a mute early (without a place: everywhere)' },
   morning: { usage: 'morning HH:MM|off', example: 'morning 06:30', what: 'morning summary time (local to each place)' },
   units: { usage: 'units us|metric', example: 'units us', what: 'units for this channel' },
@@ -144,21 +146,36 @@ function ruleIdWord(word: string, context: z.RefinementCtx): boolean {
   return false;
 }
 
-const unmuteArguments = z.string().transform((text, context) => {
+/** A rule id, then a place or none; null (with the issue added) when the text is not that. */
+function ruleThenPlace(text: string, context: z.RefinementCtx, missingRule: string): { ruleId: string; place: PlaceRef | null } | null {
   const [ruleId, ...placeWords] = text.trim().split(/\s+/).filter(Boolean);
   if (!ruleId) {
-    context.addIssue({ code: 'custom', message: 'a rule id is needed, then a place (or none for everywhere)' });
-    return z.NEVER;
+    context.addIssue({ code: 'custom', message: missingRule });
+    return null;
   }
-  if (!ruleIdWord(ruleId, context)) return z.NEVER;
+  if (!ruleIdWord(ruleId, context)) return null;
   if (placeWords.length === 0) return { ruleId, place: null };
   const place = placeRef.safeParse(placeWords.join(' '));
   if (!place.success) {
     context.addIssue({ code: 'custom', message: place.error.issues[0].message });
-    return z.NEVER;
+    return null;
   }
   return { ruleId, place: place.data };
+}
+
+/** A mute holds at one place, so the place is required. */
+const muteArguments = z.string().transform((text, context) => {
+  const parsed = ruleThenPlace(text, context, 'a rule id is needed, then a place');
+  if (!parsed) return z.NEVER;
+  if (!parsed.place) {
+    context.addIssue({ code: 'custom', message: `a place is needed after "${parsed.ruleId}": a mute holds at one place` });
+    return z.NEVER;
+  }
+  return { ruleId: parsed.ruleId, place: parsed.place };
 });
+
+/** Without a place, the rule's mutes end everywhere in the channel. */
+const unmuteArguments = z.string().transform((text, context) => ruleThenPlace(text, context, 'a rule id is needed, then a place (or none for everywhere)') ?? z.NEVER);
 
 const morningArguments = z
   .string()
@@ -217,6 +234,10 @@ export function parseCommand(rawText: string): ParsedCommand {
     }
     case 'threshold': {
       const parsed = thresholdArguments.safeParse(rest);
+      return parsed.success ? { ok: true, command: { verb, ...parsed.data } } : fail(verb, parsed.error);
+    }
+    case 'mute': {
+      const parsed = muteArguments.safeParse(rest);
       return parsed.success ? { ok: true, command: { verb, ...parsed.data } } : fail(verb, parsed.error);
     }
     case 'unmute': {

@@ -4,7 +4,7 @@ import { parseCommand, type Command } from './commandGrammar.ts';
 import { detailFromButton, endMuteFromButton, muteRule } from './handlers/buttonActions.ts';
 import { lookUp, showDetail } from './handlers/forecastCommands.ts';
 import { forgetPlace, listPlaces, savePlace } from './handlers/placeCommands.ts';
-import { endMute, listRules, setThreshold } from './handlers/ruleCommands.ts';
+import { endMute, listRules, setThreshold, startMute } from './handlers/ruleCommands.ts';
 import { setMorningTime, setUnits } from './handlers/settingsCommands.ts';
 import { listWatching, startWatching, stopWatching } from './handlers/watchCommands.ts';
 import { channelForCommand } from './channelForCommand.ts';
@@ -25,6 +25,7 @@ const VERB_WRITES: Record<Command['verb'], boolean> = {
   watch: true,
   unwatch: true,
   threshold: true,
+  mute: true,
   unmute: true,
   morning: true,
   units: true,
@@ -79,6 +80,8 @@ export function createCommandRouter(dependencies: RouterDependencies, onFault: (
         return listRules(context);
       case 'threshold':
         return setThreshold(context, command.ruleId, command.value);
+      case 'mute':
+        return startMute(context, command.ruleId, command.place);
       case 'unmute':
         return endMute(context, command.ruleId, command.place);
       case 'morning':

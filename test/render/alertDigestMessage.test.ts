@@ -45,6 +45,16 @@ describe('buildAlertDigestMessage', () => {
     expect(message.actions).toHaveLength(2);
     expect(message.actions.map((action) => { const parsed = parseMuteValue(action.value); return parsed.ok ? parsed.value.ruleId : parsed.message; })).toEqual(['mixing-reaches-dry-layer', 'mixed-layer-rh-below']);
     expect(message.sections[0]!.lines[1]).toContain('12,470 ft AGL');
+    // The rule without a button is named with the command that mutes it, at the digest's point.
+    expect(message.sections[1]!.lines).toContain('Mute another rule here: `mute transport-wind-above 44.8123,-115.4321`.');
+  });
+
+  it('names every rule beyond the buttons, and says nothing of the kind when the buttons cover them', () => {
+    const plume: AlertContent = { ...wind, ruleId: 'plume-cloud-possible', ruleName: 'Plume cloud possible' };
+    const four = buildAlertDigestMessage([dry, coupling, wind, plume], 'metric');
+    expect(four.sections[1]!.lines.filter((line) => line.startsWith('Mute another rule'))).toEqual(['Mute another rule here: `mute transport-wind-above 44.8123,-115.4321` (or plume-cloud-possible).']);
+    const two = buildAlertDigestMessage([dry, coupling], 'metric');
+    expect(two.sections[1]!.lines.some((line) => line.includes('`mute '))).toBe(false);
   });
 
   it('stays short: at most DIGEST_MAX_LINES alerts, then how many more', () => {

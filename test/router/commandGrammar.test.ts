@@ -25,6 +25,8 @@ describe('parseCommand', () => {
     expect(parseCommand('unmute hdw-above Cinder Ridge')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: { kind: 'name', name: 'Cinder Ridge' } } });
     expect(parseCommand('unmute hdw-above 44.3,-116.9')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: { kind: 'point', latitudeDeg: 44.3, longitudeDeg: -116.9 } } });
     expect(parseCommand('unmute hdw-above')).toEqual({ ok: true, command: { verb: 'unmute', ruleId: 'hdw-above', place: null } });
+    expect(parseCommand('mute hdw-above Cinder Ridge')).toEqual({ ok: true, command: { verb: 'mute', ruleId: 'hdw-above', place: { kind: 'name', name: 'Cinder Ridge' } } });
+    expect(parseCommand('MUTE hdw-above 44.3N 116.9W')).toEqual({ ok: true, command: { verb: 'mute', ruleId: 'hdw-above', place: { kind: 'point', latitudeDeg: 44.3, longitudeDeg: -116.9 } } });
     expect(parseCommand('threshold hdw-above default')).toEqual({ ok: true, command: { verb: 'threshold', ruleId: 'hdw-above', value: 'default' } });
     expect(parseCommand('')).toEqual({ ok: true, command: { verb: 'help' } });
   });
@@ -34,6 +36,9 @@ describe('parseCommand', () => {
     ['units furlongs', /"units": choose "us".*Try: `units us`/],
     ['threshold hdw-above lots', /"threshold": "lots" is not a number/],
     ['unmute', /"unmute": a rule id is needed.*Try: `unmute hdw-above Cinder Ridge`/],
+    ['mute', /"mute": a rule id is needed, then a place\. Try: `mute hdw-above Cinder Ridge`/],
+    ['mute hdw-above', /"mute": a place is needed after "hdw-above": a mute holds at one place/],
+    ['mute Hdw! Cinder Ridge', /"mute": "Hdw!" is not a rule id/],
     ['unmute HDW!', /"unmute": "HDW!" is not a rule id/],
     ['unmute hdw-above 95,10', /"unmute": .*latitude/i],
     ['save Cinder Ridge', /"save": a name and then a point/],

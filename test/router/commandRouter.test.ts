@@ -237,6 +237,41 @@ describe('the command router', () => {
     expect(faults).toEqual([]);
   });
 
+  it('mutes a rule by command at a saved place or a point, as the button does, and changes nothing when it cannot', async () => {
+    const channelId = 'mute-ops';
+    await router.handleCommand(request('save Cinder Ridge 43.62,-115.48', { channelId }));
+    await router.handleCommand(request('watch Cinder Ridge', { channelId }));
+    const channel = (await store.channels.findChannel({ platform: 'terminal', teamId: '', channelId }))!;
+    const muted = (ruleId: string, key: string, atMs = NOW_MS) => store.rules.isMuted(channel.id, ruleId, key, atMs);
+
+    expect((await router.handleCommand(request('mute hdw-above Cinder Ridge', { channelId, canManageChannel: false }))).title).toBe(NEEDS_MANAGE_CHANNEL);
+    expect((await router.handleCommand(request('mute no-such-rule Cinder Ridge', { channelId }))).title).toMatch(/There is no rule "no-such-rule".*Nothing was changed/);
+    expect((await router.handleCommand(request('mute hdw-above Nowhere Flat', { channelId }))).title).toMatch(/No place called "Nowhere Flat".*Nothing was changed/);
+    expect(await muted('hdw-above', '43.6200,-115.4800')).toBe(false);
+
+    const notice = await router.handleCommand(request('mute hdw-above Cinder Ridge', { channelId }));
+    expect(notice.kind).toBe('notice');
+    expect(notice.title).toMatch(/^Muted "[^"]+" at Cinder Ridge for 6 hours/);
+    // The saved name in the hint, and an end button whose value the button handler takes.
+    expect(text(notice)).toContain('`unmute hdw-above Cinder Ridge`');
+    expect(text(notice)).not.toMatch(/does not watch/);
+    expect(notice.actions).toEqual([{ actionId: 'end-mute', label: 'End this mute', value: 'hdw-above|43.62,-115.48' }]);
+    expect(await muted('hdw-above', '43.6200,-115.4800', NOW_MS + 5 * 3_600_000)).toBe(true);
+    expect(await muted('hdw-above', '43.6200,-115.4800', NOW_MS + 7 * 3_600_000)).toBe(false);
+    expect(await muted('mixing-reaches-dry-layer', '43.6200,-115.4800')).toBe(false);
+
+    // A point the channel does not watch: muted all the same, and the notice says it is not watched.
+    const elsewhere = await router.handleCommand(request('mute plume-cloud-possible 44.3,-116.9', { channelId }));
+    expect(text(elsewhere)).toContain('This channel does not watch 44.30°N 116.90°W; the mute holds if it starts to.');
+    expect(text(elsewhere)).toContain('`unmute plume-cloud-possible 44.3,-116.9`');
+    expect(await muted('plume-cloud-possible', '44.3000,-116.9000')).toBe(true);
+
+    const ended = await router.handleAction({ platform: 'terminal', teamId: '', channelId, userId: 'fbann', actionId: 'end-mute', value: notice.actions[0]!.value, canManageChannel: true });
+    expect(ended.title).toMatch(/alerts again at/);
+    expect(await muted('hdw-above', '43.6200,-115.4800')).toBe(false);
+    expect(faults).toEqual([]);
+  });
+
   it("ends a mute from the notice's button, only for members who may change the channel", async () => {
     const channelId = 'end-mute-ops';
     const press = (actionId: 'mute-rule' | 'end-mute', value: string, canManageChannel = true) =>
@@ -273,7 +308,7 @@ describe('the command router', () => {
 
   it('runs every example that help shows, in a channel of its own, without an error', async () => {
     for (const [verb, { example }] of Object.entries(COMMAND_EXAMPLES)) {
-      const prepared = verb === 'forget' || verb === 'unwatch' || verb === 'detail' || verb === 'watch' || verb === 'unmute' ? [`save Cinder Ridge 43.62,-115.48`] : [];
+      const prepared = verb === 'forget' || verb === 'unwatch' || verb === 'detail' || verb === 'watch' || verb === 'mute' || verb === 'unmute' ? [`save Cinder Ridge 43.62,-115.48`] : [];
       const channelId = `examples-${verb}`;
       for (const text of prepared) await router.handleCommand(request(text, { channelId }));
       if (verb === 'unwatch') await router.handleCommand(request('watch Cinder Ridge', { channelId }));

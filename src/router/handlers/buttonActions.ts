@@ -1,16 +1,12 @@
 import { parseDetailValue, parseMuteValue } from '../../render/actionValues.ts';
 import type { Message } from '../../render/message.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
-import { buildMessage } from '../../render/safetyFooter.ts';
 import { isRuleId, type Rule } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL } from '../replies.ts';
 import { describePoint } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
 import { showDetailAt } from './forecastCommands.ts';
-import { endMute } from './ruleCommands.ts';
-
-/** How long the mute button silences a rule at a place (common practice: one operational period's half). */
-export const MUTE_DURATION_MS = 6 * 3_600_000;
+import { endMute, muteAt } from './ruleCommands.ts';
 
 /** The rule and point a mute button (or its end button) names, or the message that says what is wrong with it. */
 function mutedRuleAt(context: HandlerContext, rawValue: string): { ok: true; rule: Rule; latitudeDeg: number; longitudeDeg: number } | { ok: false; message: Message } {
@@ -24,28 +20,14 @@ function mutedRuleAt(context: HandlerContext, rawValue: string): { ok: true; rul
   return { ok: true, rule, latitudeDeg: Number(point[1]), longitudeDeg: Number(point[2]) };
 }
 
+/** The alert's mute button: the rule at the alert's point. */
 export async function muteRule(context: HandlerContext, rawValue: string): Promise<Message> {
   if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
   const target = mutedRuleAt(context, rawValue);
   if (!target.ok) return target.message;
   const { rule, latitudeDeg, longitudeDeg } = target;
-  const untilMs = context.nowMs() + MUTE_DURATION_MS;
-  await context.store.rules.setMute(context.channel.id, rule.id, locationKeyOf(latitudeDeg, longitudeDeg), untilMs, context.nowMs());
-  const place = describePoint(latitudeDeg, longitudeDeg);
-  const lines = [
-    'Other rules and places still alert. When the mute ends, its warnings that still stand are posted here again.',
-    // The button's point, which the command resolves to the same location key.
-    `End it early with the button, or \`unmute ${rule.id} ${latitudeDeg},${longitudeDeg}\``,
-  ];
-  return buildMessage(
-    {
-      kind: 'notice',
-      title: `Muted "${rule.name}" at ${place} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`,
-      sections: [{ lines }],
-      actions: [{ actionId: 'end-mute', label: 'End this mute', value: rawValue }],
-    },
-    context.localFooterLine,
-  );
+  const locationKey = locationKeyOf(latitudeDeg, longitudeDeg);
+  return muteAt(context, rule, { displayName: describePoint(latitudeDeg, longitudeDeg), savedName: null, latitudeDeg, longitudeDeg, elevationM: null, locationKey });
 }
 
 /** The mute notice's button: ends that mute now, as `unmute RULE LAT,LON` does. */

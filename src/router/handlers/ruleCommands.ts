@@ -1,12 +1,17 @@
+import { encodeMuteValue } from '../../render/actionValues.ts';
 import type { Message } from '../../render/message.ts';
+import { buildMessage } from '../../render/safetyFooter.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
 import { ALL_LOCATIONS, type Mute } from '../../store/storeTypes.ts';
 import { ruleValueProblems } from '../../watch/rules/checkRuleValues.ts';
-import { isRuleId, RULE_IDS } from '../../watch/rules/rule.ts';
+import { isRuleId, RULE_IDS, type Rule } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
-import { describePoint, resolvePlace } from '../resolvePlace.ts';
+import { describePoint, resolvePlace, type ResolvedPlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
+
+/** How long a mute silences a rule at a place (common practice: one operational period's half). */
+export const MUTE_DURATION_MS = 6 * 3_600_000;
 
 /** Where a mute holds, as people read it: the channel's saved name for the point, else the point; or everywhere. */
 async function muteLocationNames(context: HandlerContext, mutes: readonly Mute[]): Promise<Map<string, string>> {
@@ -66,16 +71,62 @@ export async function setThreshold(context: HandlerContext, ruleId: string, valu
   return noticeMessage(`${rule.name}: threshold ${value} ${rule.unit} for this channel (default ${rule.threshold}).`, [], context.localFooterLine);
 }
 
+/** The shipped rule with this id, or the message that lists the rules. */
+function ruleNamed(context: HandlerContext, ruleId: string): { ok: true; rule: Rule } | { ok: false; message: Message } {
+  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
+  if (isRuleId(ruleId) && rule) return { ok: true, rule };
+  return { ok: false, message: errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine) };
+}
+
+/**
+ * Mutes a rule at a place for six hours and says so, with the button and the command that end it
+ * early. The mute button and `mute RULE PLACE` both come here; the caller has checked that the
+ * asker may change the channel.
+ */
+export async function muteAt(context: HandlerContext, rule: Rule, place: ResolvedPlace, extraLines: string[] = []): Promise<Message> {
+  const nowMs = context.nowMs();
+  const untilMs = nowMs + MUTE_DURATION_MS;
+  await context.store.rules.setMute(context.channel.id, rule.id, place.locationKey, untilMs, nowMs);
+  const point = `${place.latitudeDeg},${place.longitudeDeg}`;
+  const lines = [
+    ...extraLines,
+    'Other rules and places still alert. When the mute ends, its warnings that still stand are posted here again.',
+    // A form the command takes: the saved name, else the point (which resolves to the same location key).
+    `End it early with the button, or \`unmute ${rule.id} ${place.savedName ?? point}\``,
+  ];
+  return buildMessage(
+    {
+      kind: 'notice',
+      title: `Muted "${rule.name}" at ${place.displayName} for 6 hours (until ${new Date(untilMs).toISOString().slice(11, 16)}Z).`,
+      sections: [{ lines }],
+      actions: [{ actionId: 'end-mute', label: 'End this mute', value: encodeMuteValue(rule.id, point) }],
+    },
+    context.localFooterLine,
+  );
+}
+
+/** `mute RULE PLACE`: what the mute button does, for any rule, from the command line. */
+export async function startMute(context: HandlerContext, ruleId: string, placeRef: PlaceRef): Promise<Message> {
+  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  const named = ruleNamed(context, ruleId);
+  if (!named.ok) return named.message;
+  const resolved = await resolvePlace(context, placeRef);
+  if (!resolved.ok) return errorMessage(`${resolved.error} Nothing was changed.`, context.localFooterLine);
+  const watched = (await context.store.watches.listWatches(context.channel.id)).some((watch) => watch.locationKey === resolved.place.locationKey);
+  // Muting a place the channel does not watch holds all the same (it may be watched later); say so.
+  const notWatched = watched ? [] : [`This channel does not watch ${resolved.place.displayName}; the mute holds if it starts to.`];
+  return muteAt(context, named.rule, resolved.place, notWatched);
+}
+
 /**
  * Ends the channel's mutes of a rule now, at one place or (without one) everywhere. Its warnings
  * that still stand are told at the next alert check, as when a mute runs out (alertCheckCycle.ts).
  */
 export async function endMute(context: HandlerContext, ruleId: string, placeRef: PlaceRef | null): Promise<Message> {
   if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
-  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
-  if (!isRuleId(ruleId) || !rule) {
-    return errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine);
-  }
+  const named = ruleNamed(context, ruleId);
+  if (!named.ok) return named.message;
+  const { rule } = named;
   let where: { locationKey: string | null; name: string } = { locationKey: null, name: 'everywhere' };
   if (placeRef) {
     const resolved = await resolvePlace(context, placeRef);
