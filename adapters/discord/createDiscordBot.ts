@@ -1,4 +1,4 @@
-import { Client, Events, GatewayIntentBits } from 'discord.js';
+import { Client, Events, GatewayIntentBits, Partials } from 'discord.js';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
@@ -39,9 +39,11 @@ export interface RunningDiscordBot {
 /** Builds the discord.js client with our interaction handler; `startDiscordReceiver` logs it in. */
 export function createDiscordBot(options: DiscordReceiverOptions & { handOff: HandOff }): Client {
   // Interactions arrive without any privileged intent; Guilds keeps the channel cache useful.
+  // Partials.Channel: a channel the cache lacks (a thread the client was not told of) is made from
+  // the channel the interaction carries, so whether it is a thread is known (discordInteractions.ts).
   // This client only defers interactions; the answer edits the reply later through the
   // interaction's webhook token (see answering/).
-  const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: interactionRestOptions(options.apiUrl) });
+  const client = new Client({ intents: [GatewayIntentBits.Guilds], partials: [Partials.Channel], rest: interactionRestOptions(options.apiUrl) });
   const log = options.log ?? logToConsole;
   const handle = createInteractionHandler({ commandName: discordCommandName(), handOff: options.handOff, log });
   client.on(Events.InteractionCreate, (interaction) => {

@@ -39,8 +39,9 @@ function askOf(interaction: Interaction, commandName: string): { interaction: Ch
     if (interaction.commandName !== commandName) return null;
     const text = interaction.options.getString(discordTextOptionName) ?? '';
     // Discord sends the app's permissions in this channel with every interaction: no request needed.
-    // Whether the channel is a thread comes from the cache the Guilds intent keeps (threads
-    // included); a channel missing from it is judged as a channel.
+    // Whether the channel is a thread comes from the cache the Guilds intent keeps, or from the
+    // channel the interaction carries (Partials.Channel, createDiscordBot.ts); one that is in
+    // neither (its guild unknown) is judged as a channel.
     const inThread = interaction.channel?.isThread() ?? false;
     const botCanPost = interaction.appPermissions?.has(channelPostPermissions(inThread));
     return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text, ...(botCanPost === undefined ? {} : { botCanPost }) } } };

@@ -111,6 +111,21 @@ describe('Discord bot at the wire', () => {
     expect(router.commands.at(-1)).toMatchObject({ channelId: standInChannelId, botCanPost: false });
   });
 
+  it('judges a thread the client has not been told of (no GUILD_CREATE or THREAD_CREATE) by the type the interaction carries', async () => {
+    standIn.sendGuildWithThread(); // the guild is known; these two channels are not in it
+    const VIEW_EMBED_ATTACH = (1n << 10n) | (1n << 14n) | (1n << 15n);
+    const SEND_IN_THREADS = 1n << 38n;
+    const unseenThread = { id: '1100000000000000077', type: 12 };
+    const threadsOnly = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, VIEW_EMBED_ATTACH | SEND_IN_THREADS, unseenThread);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(threadsOnly.token));
+    expect(router.commands.at(-1)).toMatchObject({ channelId: unseenThread.id, botCanPost: true });
+    // And an unseen text channel by Send Messages, not Send Messages in Threads.
+    const unseenChannel = { id: '1100000000000000078', type: 0 };
+    const inChannel = standIn.sendCommand(discordCommandName(), 'watch Cinder Flats', MANAGE_CHANNELS, VIEW_EMBED_ATTACH | SEND_IN_THREADS, unseenChannel);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(inChannel.token));
+    expect(router.commands.at(-1)).toMatchObject({ channelId: unseenChannel.id, botCanPost: false });
+  });
+
   it('passes an empty text when the option is left out', async () => {
     const { token } = standIn.sendCommand(discordCommandName(), undefined);
     await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(token));
