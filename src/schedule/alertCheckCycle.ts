@@ -21,11 +21,12 @@
  * Payloads: the rendered Message with its images base64-encoded (outboxPayload.ts); an image too
  * large to queue is dropped with a note.
  */
+import { createHash } from 'node:crypto';
 import type { Logger } from 'pino';
 import type { ForecastLocation, ForecastResult, ForecastSeries, ForecastWindow } from '../forecast/forecastSource.ts';
 import type { Message } from '../render/message.ts';
 import type { AlertRecord, Channel, Crossing, Mute, OutgoingMessage, Store, WatchWithChannel } from '../store/storeTypes.ts';
-import { channelTargetKey, channelTargetOf } from '../store/storeKeys.ts';
+import { channelTargetKey, channelTargetOf, crossingKeyOf } from '../store/storeKeys.ts';
 import { ALL_LOCATIONS } from '../store/storeTypes.ts';
 import type { Rule, RuleId } from '../watch/rules/rule.ts';
 import type { SeriesAssessment } from '../watch/seriesAssessment.ts';
@@ -253,6 +254,12 @@ interface Member {
   endedSinceCheck: Mute[];
 }
 
+/** A short, order-free name for a set of crossings (the digest's share of its outbox key). */
+function crossingsDigest(crossings: readonly Crossing[]): string {
+  const keys = crossings.map((crossing) => crossingKeyOf(crossing)).sort();
+  return createHash('sha256').update(keys.join('\n')).digest('hex').slice(0, 24);
+}
+
 export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertCheckCycle {
   const { store, deps, workerId, logger } = options;
   const forecastHours = options.forecastHours ?? 48;
@@ -326,10 +333,11 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
    * A watch's first check: the alerts that stand for the place (recorded now or before), told to
    * its channel. One alert goes as itself (keyed per crossing and channel, as any alert); several go
    * as one digest, so that starting to watch does not bury the channel under a dozen posts. The
-   * digest's key names the check's job: a re-run of the same job after a crash queues it once.
+   * digest's key names the watch and the crossings it tells, as a single alert's names its crossing
+   * and channel: a first check run again after a crash, in the same interval or a later one, queues
+   * it once, and a watch switched off and on again is told only what it was not told before.
    */
   async function tellFirstCheck(
-    check: DueAlertCheck,
     watch: WatchWithChannel,
     alerts: Array<{ found: WatchCrossing; crossing: Crossing }>,
     assessment: SeriesAssessment,
@@ -344,7 +352,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       return;
     }
     const queued = await store.outbox.enqueue(
-      [{ dedupeKey: `alert-digest|${check.jobKey}|${channelTargetKey(target)}`, kind: 'alert', target, payload: messageToPayload(deps.renderDigest(inputs)) }],
+      [{ dedupeKey: `alert-digest|${watch.locationKey}|${watch.id}|${crossingsDigest(alerts.map(({ crossing }) => crossing))}|${channelTargetKey(target)}`, kind: 'alert', target, payload: messageToPayload(deps.renderDigest(inputs)) }],
       nowMs,
     );
     report.digestsQueued += queued.insertedIds.length;
@@ -416,7 +424,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
       }
     }
     for (const { watch, alerts } of firstCheckAlerts.values()) {
-      await tellFirstCheck(check, watch, alerts.sort((a, b) => byForecastOrder(a.found, b.found)), assessment, queuedAtMs++, report);
+      await tellFirstCheck(watch, alerts.sort((a, b) => byForecastOrder(a.found, b.found)), assessment, queuedAtMs++, report);
     }
     lastSeenRunTime.set(locationKey, result.series.runTime);
     lastAssessment.set(locationKey, assessment);

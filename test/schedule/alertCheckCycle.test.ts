@@ -3,6 +3,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createAlertCheckCycle, realAlertCheckDeps, type AlertCheckDeps } from '../../src/schedule/alertCheckCycle.ts';
 import { channelRuleSet } from '../../src/schedule/ruleSet.ts';
+import { DEFAULT_ALERT_CHECK_INTERVAL_MS } from '../../src/schedule/alertCheckDue.ts';
 import { payloadToMessage } from '../../src/delivery/outboxPayload.ts';
 import { SAFETY_FOOTER } from '../../src/render/safetyFooter.ts';
 import { locationKeyOf } from '../../src/store/storeKeys.ts';
@@ -123,6 +124,42 @@ describe('alert-check cycle', () => {
     expect(again.digestsQueued).toBe(0);
     expect(await allOutbox(store)).toHaveLength(1);
     expect((await cycle.run(MORNING + 2 * 60_000)).placesDue).toBe(0);
+  });
+
+  it('a first check run again in a later interval (the process was down across it) queues no second digest', async () => {
+    await channelWatching(store, slackTarget('C0AAA'), [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    let failures = 1;
+    const watches = Object.create(store.watches) as Store['watches'];
+    watches.markAlertChecked = async (...args) => {
+      if (failures-- > 0) throw new Error('injected: the store went away');
+      return store.watches.markAlertChecked(...args);
+    };
+    const cycle = realCycle({ ...store, watches }, source.fetchSeries);
+    expect((await cycle.run(MORNING)).digestsQueued).toBe(1);
+    // The next interval: the check's job has a new name, the digest's key does not.
+    const later = await cycle.run(MORNING + DEFAULT_ALERT_CHECK_INTERVAL_MS + 60_000);
+    expect(later.placesChecked).toBe(1);
+    expect(later.digestsQueued).toBe(0);
+    expect((await allOutbox(store)).filter((row) => row.dedupeKey.startsWith('alert-digest|'))).toHaveLength(1);
+  });
+
+  it('a watch switched off and on again is not told the same digest twice', async () => {
+    const target = slackTarget('C0AAA');
+    await channelWatching(store, target, [KESTREL_BENCH], MORNING);
+    const source = countingDemoSource();
+    const cycle = realCycle(store, source.fetchSeries);
+    expect((await cycle.run(MORNING)).digestsQueued).toBe(1);
+    const channel = (await store.channels.findChannel(target))!;
+    const [watch] = await store.watches.listWatches(channel.id);
+    await store.watches.deactivateWatch(channel.id, watch!.locationKey);
+    await store.watches.addWatch(channel.id, { latitudeDeg: watch!.latitudeDeg, longitudeDeg: watch!.longitudeDeg, placeName: watch!.placeName, createdBy: 'U0CREWLEAD' }, MORNING + 5 * 60_000);
+    // Checked again at the latest one interval later (alertCheckDue.ts). Same forecast, same
+    // warnings: the channel was told them already.
+    const rewatched = await cycle.run(MORNING + DEFAULT_ALERT_CHECK_INTERVAL_MS + 6 * 60_000);
+    expect(rewatched.placesChecked).toBe(1);
+    expect(rewatched.digestsQueued).toBe(0);
+    expect((await allOutbox(store)).filter((row) => row.dedupeKey.startsWith('alert-digest|'))).toHaveLength(1);
   });
 
   it('checks again only after the interval, and an unchanged forecast queues nothing new', async () => {
