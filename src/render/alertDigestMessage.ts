@@ -27,7 +27,8 @@ function digestLine(alert: AlertContent, units: UnitSystem): string {
  * one post each (a first check can find a dozen over 48 hours, which would bury the channel):
  * a headline with the count, the alerts in forecast order (the most severe first within an hour),
  * what the most severe one means on the ground, the model run, and mute buttons for the first
- * rules (the others by `mute RULE LAT,LON`). `alerts` are those of one place and one forecast run, already in forecast order.
+ * rules (the others by `mute RULE LAT,LON`). `alerts` are those of one place and one forecast
+ * run, already in forecast order.
  */
 export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: UnitSystem, options: RenderOptions = {}): Message {
   const first = alerts[0];

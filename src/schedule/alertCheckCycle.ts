@@ -335,7 +335,7 @@ export function createAlertCheckCycle(options: AlertCheckCycleOptions): AlertChe
    * as one digest, so that starting to watch does not bury the channel under a dozen posts. The
    * digest's key names the watch and the crossings it tells, as a single alert's names its crossing
    * and channel: a first check run again after a crash, in the same interval or a later one, queues
-   * it once, and a watch switched off and on again is told only what it was not told before.
+   * it once, and a watch switched off and on again is not told the same set of warnings twice.
    */
   async function tellFirstCheck(
     watch: WatchWithChannel,
