@@ -266,6 +266,13 @@ describe('the command router', () => {
     expect(text(elsewhere)).toContain('`unmute plume-cloud-possible 44.3,-116.9`');
     expect(await muted('plume-cloud-possible', '44.3000,-116.9000')).toBe(true);
 
+    // A demo place (the source's own name, not saved here) is named as such where mutes are listed.
+    await router.handleCommand(request('mute hdw-above Sawback Lookout', { channelId }));
+    const rules = text(await router.handleCommand(request('rules', { channelId })));
+    expect(rules).toContain('`hdw-above` at Sawback Lookout until');
+    expect(rules).toContain('`hdw-above` at Cinder Ridge until');
+    expect(rules).toContain('`plume-cloud-possible` at 44.30°N 116.90°W until');
+
     const ended = await router.handleAction({ platform: 'terminal', teamId: '', channelId, userId: 'fbann', actionId: 'end-mute', value: notice.actions[0]!.value, canManageChannel: true });
     expect(ended.title).toMatch(/alerts again at/);
     expect(await muted('hdw-above', '43.6200,-115.4800')).toBe(false);

@@ -13,9 +13,18 @@ import type { HandlerContext } from '../routerContext.ts';
 /** How long a mute silences a rule at a place (common practice: one operational period's half). */
 export const MUTE_DURATION_MS = 6 * 3_600_000;
 
-/** Where a mute holds, as people read it: the channel's saved name for the point, else the point; or everywhere. */
+/**
+ * Where a mute holds, as people read it: the channel's saved name for the point, else a place name
+ * the source knows (the demo's invented places), else the point; or everywhere.
+ */
 async function muteLocationNames(context: HandlerContext, mutes: readonly Mute[]): Promise<Map<string, string>> {
-  const saved = await context.store.places.listPlaces(context.channel.id);
+  const known = new Map<string, string>();
+  for (const name of context.suggestedPlaceNames) {
+    const place = context.findNamedPlace(name);
+    if (place) known.set(locationKeyOf(place.latitude, place.longitude), name);
+  }
+  // Saved names last, so that they win over the source's.
+  for (const place of await context.store.places.listPlaces(context.channel.id)) known.set(locationKeyOf(place.latitudeDeg, place.longitudeDeg), place.name);
   const names = new Map<string, string>();
   for (const mute of mutes) {
     if (names.has(mute.locationKey)) continue;
@@ -23,9 +32,8 @@ async function muteLocationNames(context: HandlerContext, mutes: readonly Mute[]
       names.set(mute.locationKey, 'all places');
       continue;
     }
-    const place = saved.find((candidate) => locationKeyOf(candidate.latitudeDeg, candidate.longitudeDeg) === mute.locationKey);
     const [latitude, longitude] = mute.locationKey.split(',').map(Number);
-    names.set(mute.locationKey, place?.name ?? (Number.isFinite(latitude) && Number.isFinite(longitude) ? describePoint(latitude!, longitude!) : mute.locationKey));
+    names.set(mute.locationKey, known.get(mute.locationKey) ?? (Number.isFinite(latitude) && Number.isFinite(longitude) ? describePoint(latitude!, longitude!) : mute.locationKey));
   }
   return names;
 }
