@@ -61,29 +61,28 @@ export async function listRules(context: HandlerContext): Promise<Message> {
   return noticeMessage('Alert rules', [...lines, ...hints], context.localFooterLine);
 }
 
-export async function setThreshold(context: HandlerContext, ruleId: string, value: number | 'default'): Promise<Message> {
-  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
-  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
-  if (!isRuleId(ruleId) || !rule) {
-    return errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine);
-  }
-  if (value === 'default') {
-    const cleared = await context.store.rules.clearOverride(context.channel.id, ruleId);
-    return noticeMessage(cleared ? `${rule.name}: back to the default ${rule.threshold} ${rule.unit}.` : `${rule.name} already uses the default ${rule.threshold} ${rule.unit}.`, [], context.localFooterLine);
-  }
-  const problems = ruleValueProblems(ruleId, { threshold: value });
-  if (problems.length > 0) {
-    return errorMessage(`"${ruleId}" threshold ${problems[0].reason}. Nothing was changed. Try \`threshold ${ruleId} ${rule.threshold}\`.`, context.localFooterLine);
-  }
-  await context.store.rules.setOverride(context.channel.id, ruleId, value, null, context.nowMs());
-  return noticeMessage(`${rule.name}: threshold ${value} ${rule.unit} for this channel (default ${rule.threshold}).`, [], context.localFooterLine);
-}
-
 /** The shipped rule with this id, or the message that lists the rules. */
 function ruleNamed(context: HandlerContext, ruleId: string): { ok: true; rule: Rule } | { ok: false; message: Message } {
   const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
   if (isRuleId(ruleId) && rule) return { ok: true, rule };
   return { ok: false, message: errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine) };
+}
+
+export async function setThreshold(context: HandlerContext, ruleId: string, value: number | 'default'): Promise<Message> {
+  if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
+  const named = ruleNamed(context, ruleId);
+  if (!named.ok) return named.message;
+  const { rule } = named;
+  if (value === 'default') {
+    const cleared = await context.store.rules.clearOverride(context.channel.id, ruleId);
+    return noticeMessage(cleared ? `${rule.name}: back to the default ${rule.threshold} ${rule.unit}.` : `${rule.name} already uses the default ${rule.threshold} ${rule.unit}.`, [], context.localFooterLine);
+  }
+  const problems = ruleValueProblems(rule.id, { threshold: value });
+  if (problems.length > 0) {
+    return errorMessage(`"${ruleId}" threshold ${problems[0].reason}. Nothing was changed. Try \`threshold ${ruleId} ${rule.threshold}\`.`, context.localFooterLine);
+  }
+  await context.store.rules.setOverride(context.channel.id, ruleId, value, null, context.nowMs());
+  return noticeMessage(`${rule.name}: threshold ${value} ${rule.unit} for this channel (default ${rule.threshold}).`, [], context.localFooterLine);
 }
 
 /**
