@@ -12,11 +12,11 @@ export function errorMessage(text: string, localFooterLine?: string): Message {
   return buildMessage({ kind: 'error', title: text, sections: [] }, localFooterLine);
 }
 
-/** The sentence every change-refusal shares, so users learn it once. */
 /** A change that turns posts on (watch, morning summary), refused where the platform says the bot may not post. */
 export const CANNOT_POST_HERE =
   'Lapsewatch may not post in this channel (it needs to view the channel, send messages (in a thread: send messages in threads), embed links and attach files here), so alerts and morning summaries could not arrive. Give it those permissions, then give the command again. Nothing was changed.';
 
+/** The sentence every change-refusal shares, so users learn it once. */
 export const NEEDS_MANAGE_CHANNEL =
   'Only members who can manage this channel may change what it watches or its settings. Nothing was changed.';
 
