@@ -42,14 +42,15 @@ export function buildAlertDigestMessage(alerts: readonly AlertContent[], units: 
   const placeKey = first.placeKey ?? placeKeyOf(first.latitude, first.longitude);
   const muteOrder = [...alerts].sort((a, b) => Number(b.ruleId === HEADLINE_RULE_ID) - Number(a.ruleId === HEADLINE_RULE_ID) || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity]);
   const actions: MessageAction[] = [];
+  const buttoned = new Set<string>();
   for (const alert of muteOrder) {
     if (actions.length === DIGEST_MAX_MUTES) break;
     const value = alert.muteValue ?? encodeMuteValue(alert.ruleId, placeKey);
     if (actions.some((action) => action.value === value)) continue;
     actions.push({ actionId: 'mute-rule', label: `Mute "${alert.ruleName}" here for 6 h`, value });
+    buttoned.add(alert.ruleId);
   }
   // Rules beyond the buttons can be muted by command, at the digest's point.
-  const buttoned = new Set(actions.map((action) => action.value.split('|')[0]));
   const unbuttoned = [...new Set(muteOrder.map((alert) => alert.ruleId))].filter((ruleId) => !buttoned.has(ruleId));
   const muteOthers = unbuttoned.length === 0 ? [] : [`Mute another rule here: \`mute ${unbuttoned[0]} ${first.latitude},${first.longitude}\`${unbuttoned.length > 1 ? ` (or ${unbuttoned.slice(1).join(', ')})` : ''}.`];
   return buildMessage(
