@@ -106,7 +106,7 @@ export class ForecastCache implements ForecastSource {
         return;
       }
       const entry = this.entries.get(key);
-      if (entry && entry.expiresMs > now && !(this.latestKnownRunMs !== null && entry.coversRunMs < this.latestKnownRunMs)) {
+      if (entry && entry.expiresMs > now && entry.coversRunMs >= knownRunMs) {
         this.stats.hits++;
         results[index] = relabel({ ok: true, series: this.seriesOf(key, entry) }, location);
         return;
