@@ -101,7 +101,6 @@ function headlineFigures(input: AlertRenderInput): Pick<AlertContent, 'value' | 
   };
 }
 
-
 function byForecastOrder(a: WatchCrossing, b: WatchCrossing): number {
   return Date.parse(a.validTime) - Date.parse(b.validTime) || SEVERITY_RANK[a.severity] - SEVERITY_RANK[b.severity];
 }

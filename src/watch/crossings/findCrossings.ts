@@ -5,7 +5,6 @@ import { hourToHourCrossings } from './hourToHourCrossings.ts';
 import { runToRunWorsenings } from './runToRunWorsenings.ts';
 import { SEVERITY_RANK } from '../rules/severityRank.ts';
 
-
 /**
  * All crossings of a series, in time order (the more severe first within an hour): rules changing
  * state hour to hour, and, given the previous run, hours that got worse. A worsening that starts at

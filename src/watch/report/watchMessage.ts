@@ -20,7 +20,6 @@ export interface WatchReport {
   sourceNotes: string[];
 }
 
-
 function crossingLine(crossing: Crossing): string {
   const repeats = crossing.repeatsSameDay > 0 ? ` It changes again ${crossing.repeatsSameDay} more time${crossing.repeatsSameDay === 1 ? '' : 's'} that day.` : '';
   // An end is news too, but it must not read like an alarm.
