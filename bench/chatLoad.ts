@@ -23,6 +23,7 @@ import { slackCommandName } from '../adapters/slack/slackCommandName.ts';
 import { startDiscordBot } from '../adapters/discord/index.ts';
 import { WARM_UP_ROUNDS, warmUpAssessment } from '../src/app/warmUpAssessment.ts';
 import { startReceiverThread } from '../adapters/receiverThread/startReceiverThread.ts';
+import { describeWarmUp, RECEIVER_WARM_UP_REQUESTS } from '../adapters/slack/warmUpSlackReceiver.ts';
 import { discordCommandName } from '../adapters/discord/commands.ts';
 import { ANSWER_THREAD_NICE } from '../src/app/botRuntime.ts';
 import { buildForecastSource } from '../src/app/buildForecastSource.ts';
@@ -254,19 +255,30 @@ function answerThreadNice(): number {
   return tried === undefined ? ANSWER_THREAD_NICE : Number(tried);
 }
 
+/** As npm start warms the Slack receiver; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another (0: none). */
+function slackWarmUpRequests(): number {
+  const tried = process.env.LAPSEWATCH_BENCH_SLACK_WARM_UP;
+  return tried === undefined ? RECEIVER_WARM_UP_REQUESTS : Number(tried);
+}
+
+/** The receiver's own warm-up, as it reported it: printed under the table. */
+const receiverWarmUps: string[] = [];
+
 const THREAD_LOG = (level: string, text: string): void => {
-  if (level !== 'info') console.error(`  receiver thread ${level}: ${text}`);
+  if (text.includes('receiver warmed up')) receiverWarmUps.push(text);
+  else if (level !== 'info') console.error(`  receiver thread ${level}: ${text}`);
 };
 
 async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
   const secret = 'bench-signing-secret';
   const child = await startChild('chatLoadProcess.ts', ['slack'], 30_000);
   try {
-    const receiver = { botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR };
+    const receiver = { botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR, warmUpRequests: slackWarmUpRequests() };
     const running =
       threading === 'same-thread'
         ? await startSlackApp({ router: log, ...receiver })
         : await startReceiverThread({ router: log, slack: receiver, log: THREAD_LOG, answerThreadNice: answerThreadNice() });
+    if ('warmUp' in running && running.warmUp) receiverWarmUps.push(describeWarmUp(running.warmUp));
     const port = 'port' in running ? running.port : running.slack!.port;
     try {
       return await driveLoad(child, log, options, { commandName: slackCommandName(), botUrl: `http://127.0.0.1:${port}/slack/events`, secret }, openConnectionsFirst());
@@ -388,6 +400,7 @@ function printTable(results: RunResult[], concurrency: number): void {
   console.log('(milliseconds; "<3 s" is the share of all commands acknowledged inside 3 s, failures counting as not acknowledged;');
   console.log(` "after ${concurrency}" is the same run without its first ${concurrency} commands, i.e. once every picture has been made)`);
   console.log('Goals: every ack inside 3 s, ack p99 < 50 ms, full-answer p95 < 300 ms with the picture.');
+  for (const line of receiverWarmUps) console.log(`  ${line} (before the clock, as npm start does)`);
   for (const r of results) {
     const failed = r.failures > 0 ? ` (first: ${r.firstFailure})` : '';
     console.log(`  ${r.platform} ${runLabel(r)}: ${r.failures} failed${failed}; answers: ${r.answers}; bot rss high-water ${r.botPeakRssMb.toFixed(0)} MB; stand-in + load generator ${r.childCpuMsPerCommand.toFixed(2)} CPU ms/cmd (child process, not the bot's)`);
@@ -412,6 +425,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   );
   console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks), after npm start's assessment warm-up (${WARM_UP_ROUNDS} invented series)`);
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
+  console.log(`  Slack receiver's start-up warm-up: ${slackWarmUpRequests()} signed requests to itself (npm start: ${RECEIVER_WARM_UP_REQUESTS}; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another)`);
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
   console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE})`);
   console.log('pictures (median, drawn here on this thread; answers have them drawn on the picture thread, src/render/rasterThread.ts):');

@@ -13,6 +13,7 @@ import { startSlackReceiver, type RunningSlackApp } from '../slack/createSlackAp
 import type { HandOff } from '../answering/answerJob.ts';
 import type { FromReceiver, ReceiverThreadSettings, ToReceiver } from './receiverMessages.ts';
 import { niceOfThisThread } from './threadNice.ts';
+import { describeWarmUp, type ReceiverWarmUpResult } from '../slack/warmUpSlackReceiver.ts';
 
 const port = parentPort!;
 const settings = workerData.settings as ReceiverThreadSettings;
@@ -60,6 +61,11 @@ function mainThreadRoute(path: string) {
   };
 }
 
+/** Into the start-up log: a warm-up that went wrong is a warning (the receiver works, its first answers slower). */
+function reportWarmUp(result: ReceiverWarmUpResult | null): void {
+  if (result) send({ type: 'log', level: result.acknowledged === result.sent ? 'info' : 'warn', text: describeWarmUp(result) });
+}
+
 let slack: RunningSlackApp | null = null;
 let discord: RunningDiscordBot | null = null;
 
@@ -82,6 +88,7 @@ port.on('message', (message: ToReceiver) => {
 try {
   if (settings.slack) {
     slack = await startSlackReceiver({ ...settings.slack, extraRoutes: settings.textRoutePaths.map(mainThreadRoute), handOff });
+    reportWarmUp(slack.warmUp);
   }
   if (settings.discord) {
     discord = await startDiscordReceiver({ ...settings.discord, handOff, log: (level, text) => send({ type: 'log', level, text }) });

@@ -9,6 +9,8 @@ import { answerClientOptions } from './slackClientOptions.ts';
 import { registerSlackListeners } from './slackListeners.ts';
 import { slackCommandName } from './slackCommandName.ts';
 import { boltRoutes, healthRoute, routeListener, type ExtraRoute } from './healthRoute.ts';
+import { ACTION_IDS } from '../../src/render/message.ts';
+import { RECEIVER_WARM_UP_REQUESTS, warmUpFilter, warmUpResponseUrl, warmUpSlackReceiver, type ReceiverWarmUpResult } from './warmUpSlackReceiver.ts';
 
 /** The receiving side: Bolt, its credentials and where it listens. */
 export interface SlackReceiverOptions {
@@ -26,6 +28,12 @@ export interface SlackReceiverOptions {
   logLevel?: LogLevel;
   /** More GET routes on the same port beside /healthz (e.g. /metrics). */
   extraRoutes?: ExtraRoute[];
+  /**
+   * HTTP mode: signed requests the receiver sends itself before it resolves, so that the first
+   * real commands meet compiled code (warmUpSlackReceiver.ts). Default RECEIVER_WARM_UP_REQUESTS;
+   * 0 for none.
+   */
+  warmUpRequests?: number;
 }
 
 /** A receiver and the router answering in the same thread. */
@@ -40,8 +48,13 @@ export interface RunningSlackApp {
   mode: 'http' | 'socket';
   /** The port /healthz (and, in HTTP mode, the Slack events endpoint) listens on. */
   port: number;
+  /** What the start-up warm-up did, when there was one. */
+  warmUp: ReceiverWarmUpResult | null;
   stop(): Promise<void>;
 }
+
+/** Bolt's default events path, where Slack posts commands and button presses in HTTP mode. */
+const EVENTS_PATH = '/slack/events';
 
 /** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackReceiver` runs it. */
 export function createSlackApp(options: SlackReceiverOptions & { handOff: HandOff }): { app: App; mode: 'http' | 'socket' } {
@@ -76,11 +89,18 @@ function listenForRoutes(routes: ExtraRoute[], port: number, host: string | unde
  * listens (HTTP) or Slack has said hello (Socket Mode).
  */
 export async function startSlackReceiver(options: SlackReceiverOptions & { handOff: HandOff }): Promise<RunningSlackApp> {
-  const { app, mode } = createSlackApp(options);
+  const warmUpRequests = options.signingSecret && !options.appToken ? (options.warmUpRequests ?? RECEIVER_WARM_UP_REQUESTS) : 0;
+  const warmUpUrl = warmUpRequests > 0 ? warmUpResponseUrl() : null;
+  const { app, mode } = createSlackApp({ ...options, handOff: warmUpUrl ? warmUpFilter(options.handOff, warmUpUrl) : options.handOff });
   const port = options.port ?? 3000;
   if (mode === 'http') {
     const server = (await app.start({ port, ...(options.host ? { host: options.host } : {}) })) as Server;
-    return { app, mode, port: (server.address() as AddressInfo).port, stop: () => app.stop() as Promise<void> };
+    const address = server.address() as AddressInfo;
+    const warmUp =
+      warmUpUrl === null
+        ? null
+        : await warmUpSlackReceiver({ address, path: EVENTS_PATH, signingSecret: options.signingSecret!, commandName: slackCommandName(), responseUrl: warmUpUrl, actionId: ACTION_IDS[0], requests: warmUpRequests });
+    return { app, mode, port: address.port, warmUp, stop: () => app.stop() as Promise<void> };
   }
   // Socket Mode has no events endpoint; /healthz gets a small server of its own.
   const health = await listenForRoutes([healthRoute, ...(options.extraRoutes ?? [])], port, options.host);
@@ -94,6 +114,8 @@ export async function startSlackReceiver(options: SlackReceiverOptions & { handO
     app,
     mode,
     port: (health.address() as AddressInfo).port,
+    // Socket Mode's events come over Bolt's WebSocket, which the receiver cannot send itself.
+    warmUp: null,
     stop: async () => {
       await app.stop();
       await new Promise<void>((resolve) => health.close(() => resolve()));

@@ -39,6 +39,10 @@ describe('Slack Socket Mode at the wire', () => {
     expect(open?.headers.authorization).toBe('Bearer xapp-invented');
   });
 
+  it('makes no HTTP warm-up: events come over the socket, which the receiver cannot send itself', () => {
+    expect(slack.warmUp).toBeNull();
+  });
+
   it('acknowledges a slash command envelope, then answers at the response URL', async () => {
     router.hold();
     const ack = await standIn.sendEnvelope('slash_commands', slashCommandForm(slackCommandName(), 'Cinder Flats', standIn.responseUrl('sock-1')));
