@@ -48,6 +48,7 @@ describe('npm start with Slack and Discord credentials', { timeout: 90_000 }, ()
   let bot: ChildProcess;
   let port: number;
   let stderr = '';
+  let log = '';
   let dataDir: string;
 
   beforeAll(async () => {
@@ -61,7 +62,7 @@ describe('npm start with Slack and Discord credentials', { timeout: 90_000 }, ()
         ...process.env,
         LAPSEWATCH_DATA_DIR: dataDir,
         LAPSEWATCH_HTTP_PORT: String(port),
-        LAPSEWATCH_LOG_LEVEL: 'warn',
+        LAPSEWATCH_LOG_LEVEL: 'info',
         SLACK_BOT_TOKEN: 'xoxb-invented',
         SLACK_SIGNING_SECRET: secret,
         SLACK_APP_TOKEN: '',
@@ -70,8 +71,9 @@ describe('npm start with Slack and Discord credentials', { timeout: 90_000 }, ()
         DISCORD_APPLICATION_ID: standInApplicationId,
         DISCORD_API_URL: discordStandIn.apiUrl,
       },
-      stdio: ['ignore', 'ignore', 'pipe'],
+      stdio: ['ignore', 'pipe', 'pipe'],
     });
+    bot.stdout!.on('data', (chunk) => (log += chunk));
     bot.stderr!.on('data', (chunk) => (stderr += chunk));
     await waitForHealth(port, Date.now() + 60_000);
     await discordStandIn.identified(30_000);
@@ -104,6 +106,10 @@ describe('npm start with Slack and Discord credentials', { timeout: 90_000 }, ()
   it('serves Prometheus metrics made by the main thread on the receiver port', async () => {
     const text = await (await fetch(`http://127.0.0.1:${port}/metrics`)).text();
     expect(text).toMatch(/^# HELP lapsewatch_/m);
+  });
+
+  it('warmed the Slack receiver before it was ready: Bolt acknowledged every request it sent itself', () => {
+    expect(log + stderr).toMatch(/slack receiver warmed up: 150 of 150 signed requests to itself acknowledged/);
   });
 
   it('stops cleanly on SIGTERM', async () => {
