@@ -10,8 +10,11 @@
 // (keepAliveCaller.ts) that takes as little of them as it can.
 // Each is run twice: with the receivers in their own worker thread, as `npm start` runs them, and
 // with everything in one thread, so the two sit side by side.
+// The Slack receiver makes its start-up warm-up (adapters/slack/warmUpSlackReceiver.ts) before the
+// clock, as under npm start.
 // Run: npx tsx bench/chatLoad.ts [--real-only] (LAPSEWATCH_BENCH_OPEN_CONNECTIONS=1: Slack's
-// connections opened before the clock, see openConnectionsFirst). Bounded: each run stops at its deadline whatever
+// connections opened before the clock, see openConnectionsFirst; LAPSEWATCH_BENCH_SLACK_WARM_UP=N:
+// another number of warm-up requests, 0 for none). Bounded: each run stops at its deadline whatever
 // happens, and the child stops itself after 150 s.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
