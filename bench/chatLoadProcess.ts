@@ -11,8 +11,10 @@
  *   (slackLoadThread.ts) so that the stand-in's work cannot delay it; full = the response-URL post
  *   and, when that answer is posted in the channel (lookups and detail views carry a picture), the
  *   finished upload into the caller's channel.
- * - Discord: ack = the deferred-reply callback; full = the edit of the original reply, which
- *   carries the embed and its attachment in one request.
+ * - Discord: ack = the arrival of the deferred-reply callback at the stand-in (its head read, before
+ *   the stand-in reads, records and answers it: that is the stand-in's work, not the bot's, and on
+ *   one thread it would queue the acks of a burst behind each other); full = the edit of the
+ *   original reply, which carries the embed and its attachment in one request.
  */
 import { memorySampler, serveParent } from './childSide.ts';
 import { startSlackStandIn, type SlackStandIn } from '../test/adapters/slackStandIn.ts';
@@ -67,9 +69,11 @@ function forgetBody(call: RecordedCall): void {
 function discordSender(standIn: DiscordStandIn, request: LoadRequest): Sender {
   const deferred = new Map<string, (at: number) => void>();
   const edited = new Map<string, (at: number) => void>();
-  const close = standIn.onCall((call) => {
-    const callback = /\/interactions\/\d+\/([^/]+)\/callback$/.exec(call.path);
+  const stopArrivals = standIn.onArrival((_method, url) => {
+    const callback = /\/interactions\/\d+\/([^/]+)\/callback(?:\?|$)/.exec(url);
     if (callback) deferred.get(callback[1]!)?.(performance.now());
+  });
+  const stopCalls = standIn.onCall((call) => {
     const edit = /\/webhooks\/\d+\/([^/]+)\/messages\/@original$/.exec(call.path);
     if (edit) edited.get(edit[1]!)?.(performance.now());
     forgetBody(call);
@@ -93,7 +97,13 @@ function discordSender(standIn: DiscordStandIn, request: LoadRequest): Sender {
       edited.delete(token);
     }
   };
-  return { send, close };
+  return {
+    send,
+    close: () => {
+      stopArrivals();
+      stopCalls();
+    },
+  };
 }
 
 const platform = process.argv[2];

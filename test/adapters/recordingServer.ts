@@ -64,12 +64,16 @@ export class RecordingServer {
   private readonly sockets = new Set<Socket>();
   private readonly listeners = new Set<() => void>();
   private readonly callListeners = new Set<(call: RecordedCall) => void>();
+  private readonly arrivalListeners = new Set<(method: string, url: string) => void>();
   private port = 0;
   private parseMultipart = true;
   private keepCalls = true;
 
   constructor(private readonly handle: Handler) {
-    this.server = createServer((request, response) => void this.serve(request, response));
+    this.server = createServer((request, response) => {
+      for (const listener of this.arrivalListeners) listener(request.method ?? 'GET', request.url ?? '/');
+      void this.serve(request, response);
+    });
     this.server.on('connection', (socket) => {
       this.sockets.add(socket);
       socket.on('close', () => this.sockets.delete(socket));
@@ -119,6 +123,16 @@ export class RecordingServer {
   onCall(listener: (call: RecordedCall) => void): () => void {
     this.callListeners.add(listener);
     return () => this.callListeners.delete(listener);
+  }
+
+  /**
+   * Told of every request as soon as its head has arrived, before its body is read and answered:
+   * benchmarks time acknowledgements this way, so that what the stand-in does with a request is
+   * not counted against the bot. Returns an unsubscribe.
+   */
+  onArrival(listener: (method: string, url: string) => void): () => void {
+    this.arrivalListeners.add(listener);
+    return () => this.arrivalListeners.delete(listener);
   }
 
   callsTo(path: RegExp): RecordedCall[] {
