@@ -69,11 +69,13 @@ export interface ReceiverWarmUpOptions {
   requests: number;
 }
 
-/** The listening address as a client reaches it: the wildcard addresses are reached on loopback. */
+/**
+ * The listening address as a client reaches it. A wildcard is reached on IPv4 loopback: Node's
+ * default "::" listener takes IPv4 too (dual stack), while "::1" can be unreachable where IPv6 is
+ * switched off, as in many containers.
+ */
 function loopbackFor(address: AddressInfo): string {
-  if (address.address === '0.0.0.0') return '127.0.0.1';
-  if (address.address === '::') return '::1';
-  return address.address;
+  return address.address === '0.0.0.0' || address.address === '::' ? '127.0.0.1' : address.address;
 }
 
 /** Form bodies as Slack posts them, with invented ids that name the warm-up. */

@@ -48,6 +48,19 @@ describe('Slack receiver warm-up at start', () => {
   });
 });
 
+describe('Slack receiver warm-up on the default address (all interfaces, as npm start listens)', () => {
+  it('reaches the receiver over loopback', async () => {
+    const standIn = await startSlackStandIn();
+    const slack = await startSlackApp({ router: new RouterDouble(), botToken: 'xoxb-invented', signingSecret: secret, apiUrl: standIn.apiUrl, port: 0, logLevel: LogLevel.ERROR, warmUpRequests: 10 });
+    try {
+      expect(slack.warmUp).toMatchObject({ sent: 10, acknowledged: 10, firstProblem: null });
+    } finally {
+      await slack.stop();
+      await standIn.stop();
+    }
+  });
+});
+
 describe('Slack receiver warm-up that cannot reach its receiver', () => {
   it('says why, within its time limit, and does not throw', async () => {
     // A port that was free a moment ago: nothing listens on it.
