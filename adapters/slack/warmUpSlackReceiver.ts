@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { request } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { HandOff } from '../answering/answerJob.ts';
-import { slackSignatureV0 } from './slackSignature.ts';
+import { slackSignedFormHeaders } from './slackSignature.ts';
 
 /**
  * V8 runs a code path slowly (interpreted, then baseline code) until it has run it often enough to
@@ -111,7 +111,6 @@ function warmUpBody(index: number, options: ReceiverWarmUpOptions): string {
 
 /** One signed POST on a connection of its own; resolves with null when answered 200, else what went wrong. */
 function postOnce(host: string, port: number, path: string, body: string, secret: string, deadlineMs: number): Promise<string | null> {
-  const timestampSec = Math.floor(Date.now() / 1000);
   return new Promise((resolve) => {
     const sent = request(
       {
@@ -121,12 +120,7 @@ function postOnce(host: string, port: number, path: string, body: string, secret
         method: 'POST',
         agent: false,
         timeout: Math.max(1, deadlineMs - Date.now()),
-        headers: {
-          'content-type': 'application/x-www-form-urlencoded',
-          'content-length': Buffer.byteLength(body),
-          'x-slack-request-timestamp': String(timestampSec),
-          'x-slack-signature': slackSignatureV0(secret, timestampSec, body),
-        },
+        headers: { ...slackSignedFormHeaders(secret, body), 'content-length': Buffer.byteLength(body) },
       },
       (response) => {
         response.resume();

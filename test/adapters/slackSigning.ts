@@ -1,7 +1,7 @@
 // Builds requests the way Slack signs them (v0: HMAC-SHA256 of "v0:{timestamp}:{body}"). Bolt's
 // own verification is what the tests hold these signatures to.
 import { nodeHttpFetch } from '../../adapters/http/nodeHttpFetch.ts';
-import { slackSignatureV0 } from '../../adapters/slack/slackSignature.ts';
+import { slackSignedFormHeaders } from '../../adapters/slack/slackSignature.ts';
 
 export interface SignedPostOptions {
   secret: string;
@@ -13,12 +13,8 @@ export interface SignedPostOptions {
 
 /** The headers Slack sends with a signed form body. */
 export function signedFormHeaders(body: string, options: SignedPostOptions): Record<string, string> {
-  const timestampSec = options.timestampSec ?? Math.floor(Date.now() / 1000);
-  return {
-    'content-type': 'application/x-www-form-urlencoded',
-    'x-slack-request-timestamp': String(timestampSec),
-    'x-slack-signature': options.signature ?? slackSignatureV0(options.secret, timestampSec, body),
-  };
+  const headers = slackSignedFormHeaders(options.secret, body, options.timestampSec);
+  return options.signature === undefined ? headers : { ...headers, 'x-slack-signature': options.signature };
 }
 
 /** POSTs a form body to the receiver, signed; resolves with the HTTP status and body. */
