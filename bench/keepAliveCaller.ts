@@ -66,11 +66,6 @@ export class KeepAliveCaller {
     private readonly port: number,
   ) {}
 
-  /** Whether a connection is open (for the load that opens them before the clock). */
-  get connected(): boolean {
-    return this.socket !== null;
-  }
-
   post(path: string, headers: Record<string, string>, body: string): Promise<CallerAnswer> {
     if (this.waiting) return Promise.reject(new Error('one request at a time per caller'));
     const socket = this.socket ?? this.open();
