@@ -1,20 +1,20 @@
 import { parseDetailValue, parseMuteValue } from '../../render/actionValues.ts';
 import type { Message } from '../../render/message.ts';
 import { locationKeyOf } from '../../store/storeKeys.ts';
-import { isRuleId, type Rule } from '../../watch/rules/rule.ts';
+import type { Rule } from '../../watch/rules/rule.ts';
 import { errorMessage, NEEDS_MANAGE_CHANNEL } from '../replies.ts';
 import { describePoint } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
 import { showDetailAt } from './forecastCommands.ts';
-import { endMute, muteAt } from './ruleCommands.ts';
+import { endMute, muteAt, shippedRule } from './ruleCommands.ts';
 
 /** The rule and point a mute button (or its end button) names, or the message that says what is wrong with it. */
 function mutedRuleAt(context: HandlerContext, rawValue: string): { ok: true; rule: Rule; latitudeDeg: number; longitudeDeg: number } | { ok: false; message: Message } {
   const parsed = parseMuteValue(rawValue);
   if (!parsed.ok) return { ok: false, message: errorMessage(parsed.message, context.localFooterLine) };
   const { ruleId, placeKey } = parsed.value;
-  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
-  if (!isRuleId(ruleId) || !rule) return { ok: false, message: errorMessage(`The button names an unknown rule "${ruleId}". Nothing was changed.`, context.localFooterLine) };
+  const rule = shippedRule(context, ruleId);
+  if (!rule) return { ok: false, message: errorMessage(`The button names an unknown rule "${ruleId}". Nothing was changed.`, context.localFooterLine) };
   const point = /^(-?\d+(?:\.\d+)?),(-?\d+(?:\.\d+)?)$/.exec(placeKey);
   if (!point) return { ok: false, message: errorMessage(`The button names an unknown place "${placeKey}". Nothing was changed.`, context.localFooterLine) };
   return { ok: true, rule, latitudeDeg: Number(point[1]), longitudeDeg: Number(point[2]) };

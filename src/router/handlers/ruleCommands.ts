@@ -61,10 +61,15 @@ export async function listRules(context: HandlerContext): Promise<Message> {
   return noticeMessage('Alert rules', [...lines, ...hints], context.localFooterLine);
 }
 
+/** The shipped rule with this id, or null: commands and buttons name rules by id. */
+export function shippedRule(context: HandlerContext, ruleId: string): Rule | null {
+  return (isRuleId(ruleId) && context.defaultRules.find((candidate) => candidate.id === ruleId)) || null;
+}
+
 /** The shipped rule with this id, or the message that lists the rules. */
 function ruleNamed(context: HandlerContext, ruleId: string): { ok: true; rule: Rule } | { ok: false; message: Message } {
-  const rule = context.defaultRules.find((candidate) => candidate.id === ruleId);
-  if (isRuleId(ruleId) && rule) return { ok: true, rule };
+  const rule = shippedRule(context, ruleId);
+  if (rule) return { ok: true, rule };
   return { ok: false, message: errorMessage(`There is no rule "${ruleId}". Rules: ${RULE_IDS.join(', ')}. Nothing was changed.`, context.localFooterLine) };
 }
 
