@@ -56,9 +56,14 @@ export interface RunningSlackApp {
 /** Bolt's default events path, where Slack posts commands and button presses in HTTP mode. */
 const EVENTS_PATH = '/slack/events';
 
+/** Socket Mode when an app token is given, else HTTP (which needs the signing secret). */
+function slackMode(options: SlackReceiverOptions): 'http' | 'socket' {
+  return options.appToken ? 'socket' : 'http';
+}
+
 /** Builds the Bolt app (HTTP or Socket Mode) with our listeners; `startSlackReceiver` runs it. */
 export function createSlackApp(options: SlackReceiverOptions & { handOff: HandOff }): { app: App; mode: 'http' | 'socket' } {
-  const mode = options.appToken ? 'socket' : 'http';
+  const mode = slackMode(options);
   if (mode === 'http' && !options.signingSecret) {
     throw new Error('Slack HTTP mode needs SLACK_SIGNING_SECRET (or set SLACK_APP_TOKEN for Socket Mode)');
   }
@@ -89,7 +94,8 @@ function listenForRoutes(routes: ExtraRoute[], port: number, host: string | unde
  * listens (HTTP) or Slack has said hello (Socket Mode).
  */
 export async function startSlackReceiver(options: SlackReceiverOptions & { handOff: HandOff }): Promise<RunningSlackApp> {
-  const warmUpRequests = options.signingSecret && !options.appToken ? (options.warmUpRequests ?? RECEIVER_WARM_UP_REQUESTS) : 0;
+  // Only HTTP mode: Socket Mode's events come over Bolt's WebSocket, which the receiver cannot send itself.
+  const warmUpRequests = slackMode(options) === 'http' ? (options.warmUpRequests ?? RECEIVER_WARM_UP_REQUESTS) : 0;
   const warmUpUrl = warmUpRequests > 0 ? warmUpResponseUrl() : null;
   const { app, mode } = createSlackApp({ ...options, handOff: warmUpUrl ? warmUpFilter(options.handOff, warmUpUrl) : options.handOff });
   const port = options.port ?? 3000;
