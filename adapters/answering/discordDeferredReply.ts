@@ -1,7 +1,7 @@
 import type { REST } from '@discordjs/rest';
 import { Routes } from 'discord-api-types/v10';
 import type { DiscordEncoding } from '../../src/render/encodeDiscord.ts';
-import { bufferView } from '../http/bufferView.ts';
+import { discordSendData } from '../discord/discordFilesBody.ts';
 
 /**
  * Turns a deferred interaction reply into the answer: PATCH of the original response through the
@@ -9,16 +9,12 @@ import { bufferView } from '../http/bufferView.ts';
  * `editReply`. The token is the credential, so no bot token is sent (`auth: false`).
  */
 export async function editDeferredReply(rest: REST, applicationId: string, interactionToken: string, encoded: DiscordEncoding): Promise<void> {
-  const files = encoded.files.map((file) => ({ name: file.fileName, data: bufferView(file.png), contentType: 'image/png' }));
-  await rest.patch(Routes.webhookMessage(applicationId, interactionToken, '@original'), {
-    auth: false,
-    body: {
-      content: encoded.content,
-      embeds: encoded.embeds,
-      components: encoded.components,
-      allowed_mentions: encoded.allowed_mentions,
-      attachments: encoded.files.map((file, index) => ({ id: index, filename: file.fileName, description: file.altText })),
-    },
-    ...(files.length > 0 ? { files } : {}),
-  });
+  const body = {
+    content: encoded.content,
+    embeds: encoded.embeds,
+    components: encoded.components,
+    allowed_mentions: encoded.allowed_mentions,
+    attachments: encoded.files.map((file, index) => ({ id: index, filename: file.fileName, description: file.altText })),
+  };
+  await rest.patch(Routes.webhookMessage(applicationId, interactionToken, '@original'), { auth: false, ...discordSendData(body, encoded.files) });
 }

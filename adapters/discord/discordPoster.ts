@@ -10,7 +10,7 @@ import { defaultDiscordEncoder, type DiscordEncoder } from './discordEncoder.ts'
 import { discordPostOutcome, isInvalidFormBody } from './discordPostOutcome.ts';
 import { fetchRequest } from './fetchRequest.ts';
 import { nonceFromKey } from './nonceFromKey.ts';
-import { bufferView } from '../http/bufferView.ts';
+import { discordSendData } from './discordFilesBody.ts';
 
 export interface DiscordPosterOptions {
   token: string;
@@ -67,8 +67,7 @@ export function createDiscordPoster(options: DiscordPosterOptions): ChannelPoste
   const encode = options.encode ?? defaultDiscordEncoder;
 
   async function send(channelId: string, body: Body, encoded?: DiscordEncoding): Promise<string | null> {
-    const files = encoded?.files.map((file) => ({ name: file.fileName, data: bufferView(file.png), contentType: 'image/png' })) ?? [];
-    const sent = (await rest.post(Routes.channelMessages(channelId), { body, ...(files.length > 0 ? { files } : {}) })) as APIMessage;
+    const sent = (await rest.post(Routes.channelMessages(channelId), discordSendData(body, encoded?.files ?? []))) as APIMessage;
     return sent?.id ?? null;
   }
 

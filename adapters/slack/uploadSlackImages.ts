@@ -1,6 +1,7 @@
 import type { WebClient } from '@slack/web-api';
 import type { SlackFile } from '../../src/render/encodeSlack.ts';
-import { multipartBody, nodeHttpFetch } from '../http/nodeHttpFetch.ts';
+import { multipartBody } from '../http/multipartBody.ts';
+import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
 import { slackPostOutcome } from './slackPostOutcome.ts';
 
 /** `channelGone`: Slack refused because the bot cannot post in the channel (not a member, archived...). */

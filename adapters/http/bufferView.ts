@@ -1,4 +1,0 @@
-/** A Buffer over the same bytes, not a copy: pictures are handed to the platform clients as they are (each copy of a 50-200 kB PNG per answer was garbage to collect). */
-export function bufferView(bytes: Uint8Array): Buffer {
-  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-}
