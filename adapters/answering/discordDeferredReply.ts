@@ -1,7 +1,7 @@
 import type { REST } from '@discordjs/rest';
 import { Routes } from 'discord-api-types/v10';
 import type { DiscordEncoding } from '../../src/render/encodeDiscord.ts';
-import { discordSendData } from '../discord/discordFilesBody.ts';
+import { discordSendData } from '../discord/discordSendData.ts';
 
 /**
  * Turns a deferred interaction reply into the answer: PATCH of the original response through the

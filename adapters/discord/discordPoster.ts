@@ -10,7 +10,7 @@ import { defaultDiscordEncoder, type DiscordEncoder } from './discordEncoder.ts'
 import { discordPostOutcome, isInvalidFormBody } from './discordPostOutcome.ts';
 import { fetchRequest } from './fetchRequest.ts';
 import { nonceFromKey } from './nonceFromKey.ts';
-import { discordSendData } from './discordFilesBody.ts';
+import { discordSendData } from './discordSendData.ts';
 
 export interface DiscordPosterOptions {
   token: string;

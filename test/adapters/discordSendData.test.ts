@@ -2,7 +2,7 @@
 // (Node's Response.formData), an implementation of the multipart/form-data format (RFC 7578) that
 // is not ours.
 import { describe, expect, it } from 'vitest';
-import { discordSendData } from '../../adapters/discord/discordFilesBody.ts';
+import { discordSendData } from '../../adapters/discord/discordSendData.ts';
 
 const png = Uint8Array.from({ length: 5000 }, (_, index) => (index * 37) % 256);
 const chart = { fileName: 'mixing-48h.png', altText: 'Invented chart', png };
