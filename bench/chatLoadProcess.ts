@@ -19,7 +19,8 @@
 import { memorySampler, serveParent } from './childSide.ts';
 import { startSlackStandIn, type SlackStandIn } from '../test/adapters/slackStandIn.ts';
 import { Worker } from 'node:worker_threads';
-import { pool, waitUntil } from './loadPacing.ts';
+import { pool } from '../src/jobPool.ts';
+import { waitUntil } from './loadPacing.ts';
 import type { Arrival, SlackLoadResult, SlackLoadSettings } from './slackLoadThread.ts';
 import { standInApplicationId, startDiscordStandIn, type DiscordStandIn } from '../test/adapters/discordStandIn.ts';
 import type { RecordedCall } from '../test/adapters/recordingServer.ts';

@@ -9,7 +9,8 @@ import { parentPort } from 'node:worker_threads';
 import { signedFormHeaders, slashCommandForm } from '../test/adapters/slackSigning.ts';
 import type { LoadRequest } from './chatLoadProcess.ts';
 import { KeepAliveCaller } from './keepAliveCaller.ts';
-import { pool, waitUntil } from './loadPacing.ts';
+import { pool } from '../src/jobPool.ts';
+import { waitUntil } from './loadPacing.ts';
 
 export type SlackLoadSettings = Required<Omit<LoadRequest, 'botUrl' | 'secret'>> & {
   botUrl: string;

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { request } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { HandOff } from '../answering/answerJob.ts';
+import { pool } from '../../src/jobPool.ts';
 import { slackSignedFormHeaders } from './slackSignature.ts';
 
 /**
@@ -140,17 +141,12 @@ export async function warmUpSlackReceiver(options: ReceiverWarmUpOptions): Promi
   const deadlineMs = Date.now() + TIME_LIMIT_MS;
   const host = loopbackFor(options.address);
   const result: ReceiverWarmUpResult = { sent: 0, acknowledged: 0, elapsedMs: 0, firstProblem: null };
-  let next = 0;
-  const caller = async (): Promise<void> => {
-    while (next < options.requests && Date.now() < deadlineMs) {
-      const index = next++;
-      result.sent += 1;
-      const problem = await postOnce(host, options.address.port, options.path, warmUpBody(index, options), options.signingSecret, deadlineMs);
-      if (problem === null) result.acknowledged += 1;
-      else result.firstProblem ??= problem;
-    }
-  };
-  await Promise.all(Array.from({ length: Math.min(AT_ONCE, options.requests) }, caller));
+  await pool(options.requests, AT_ONCE, deadlineMs, async (index) => {
+    result.sent += 1;
+    const problem = await postOnce(host, options.address.port, options.path, warmUpBody(index, options), options.signingSecret, deadlineMs);
+    if (problem === null) result.acknowledged += 1;
+    else result.firstProblem ??= problem;
+  });
   result.elapsedMs = performance.now() - startedMs;
   return result;
 }
