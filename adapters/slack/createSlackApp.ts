@@ -120,7 +120,6 @@ export async function startSlackReceiver(options: SlackReceiverOptions & { handO
     app,
     mode,
     port: (health.address() as AddressInfo).port,
-    // Socket Mode's events come over Bolt's WebSocket, which the receiver cannot send itself.
     warmUp: null,
     stop: async () => {
       await app.stop();
