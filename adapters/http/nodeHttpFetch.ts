@@ -6,8 +6,9 @@
  * node:http a quarter of that; a Slack answer with a picture makes three such calls.
  *
  * What it covers is what those clients send: string, byte, URLSearchParams and FormData bodies
- * (FormData encoded as multipart/form-data, RFC 7578), headers as an object, pairs or Headers,
- * and an AbortSignal. The whole response is read before it resolves (API answers are small). A
+ * (FormData encoded as multipart/form-data, RFC 7578), and an array of byte pieces sent one after
+ * the other (fetch's BodyInit allows an iterable of Uint8Array; our multipart bodies go so, their
+ * pictures uncopied); headers as an object, pairs or Headers, and an AbortSignal. The whole response is read before it resolves (API answers are small). A
  * redirect is handed back as it is, never followed.
  */
 import { request as httpRequest, type IncomingMessage } from 'node:http';
@@ -51,6 +52,7 @@ async function encodeBody(body: unknown): Promise<Body | null> {
   if (body instanceof URLSearchParams) return { pieces: [Buffer.from(body.toString(), 'utf8')], contentType: 'application/x-www-form-urlencoded;charset=UTF-8' };
   if (ArrayBuffer.isView(body)) return { pieces: [Buffer.from(body.buffer, body.byteOffset, body.byteLength)], contentType: null };
   if (body instanceof ArrayBuffer) return { pieces: [Buffer.from(body)], contentType: null };
+  if (Array.isArray(body) && body.every((piece) => ArrayBuffer.isView(piece))) return { pieces: body.map((piece: ArrayBufferView) => Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength)), contentType: null };
   if (typeof (body as FormData).entries === 'function' && typeof (body as FormData).append === 'function') return multipart(body as FormData);
   if (isFileLike(body)) return { pieces: [Buffer.from(await body.arrayBuffer())], contentType: body.type || null };
   throw new TypeError(`this transport does not send a ${Object.prototype.toString.call(body)} body`);

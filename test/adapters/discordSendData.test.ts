@@ -8,9 +8,11 @@ const png = Uint8Array.from({ length: 5000 }, (_, index) => (index * 37) % 256);
 const chart = { fileName: 'mixing-48h.png', altText: 'Invented chart', png };
 const body = { content: 'Invented answer', attachments: [{ id: 0, filename: 'mixing-48h.png', description: 'Invented chart' }] };
 
+/** The form as undici reads it, from the pieces the transport writes one after another. */
 async function readForm(data: ReturnType<typeof discordSendData>): Promise<FormData> {
   const headers = data.headers as Record<string, string>;
-  return new Response(data.body as Buffer, { headers: { 'content-type': headers['Content-Type']! } }).formData();
+  expect(Array.isArray(data.body)).toBe(true);
+  return new Response(Buffer.concat(data.body as Buffer[]), { headers: { 'content-type': headers['Content-Type']! } }).formData();
 }
 
 describe('discordSendData', () => {
