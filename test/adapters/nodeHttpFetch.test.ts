@@ -97,6 +97,20 @@ describe('node:http transport for the platform clients', () => {
     expect([limited.oursResponse.status, limited.oursResponse.headers.get('retry-after'), await limited.oursResponse.text()]).toEqual([429, '3', '{"ok":false}']);
   });
 
+  it('sends an array of byte pieces as the bytes of them one after another, as fetch sends the same bytes in one piece', async () => {
+    const pieces = [Buffer.from('--b\r\n'), new Uint8Array([0, 13, 10, 255]).subarray(1, 3), new Uint8Array(0), Buffer.from('\r\n--b--\r\n')];
+    const whole = Buffer.concat(pieces);
+    const ours = await nodeHttpFetch(`${base}/pieces`, { method: 'POST', headers: { 'content-type': 'multipart/form-data; boundary=b' }, body: pieces });
+    expect(ours.status).toBe(200);
+    const oursArrived = arrived.at(-1)!;
+    await fetch(`${base}/pieces`, { method: 'POST', headers: { 'content-type': 'multipart/form-data; boundary=b' }, body: whole });
+    const theirs = arrived.at(-1)!;
+    expect(oursArrived.raw.toString('hex')).toBe(whole.toString('hex'));
+    expect(oursArrived.raw.equals(theirs.raw)).toBe(true);
+    expect(oursArrived.headers['content-length']).toBe(String(whole.length));
+    await expect(nodeHttpFetch(`${base}/answer`, { method: 'POST', body: [Buffer.from('a'), 'b'] as never })).rejects.toThrow(/does not send a \[object Array\] body/);
+  });
+
   it('rejects with the signal\'s reason when aborted or timed out, as fetch does, and refuses what it cannot send', async () => {
     const timedOut = await nodeHttpFetch(`${base}/slow`, { signal: AbortSignal.timeout(50) }).catch((error: unknown) => error);
     const fetchTimedOut = await fetch(`${base}/slow`, { signal: AbortSignal.timeout(50) }).catch((error: unknown) => error);
