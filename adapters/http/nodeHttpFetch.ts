@@ -8,8 +8,9 @@
  * What it covers is what those clients send: string, byte, URLSearchParams and FormData bodies
  * (FormData encoded as multipart/form-data, RFC 7578), and an array of byte pieces sent one after
  * the other (fetch's BodyInit allows an iterable of Uint8Array; our multipart bodies go so, their
- * pictures uncopied); headers as an object, pairs or Headers, and an AbortSignal. The whole response is read before it resolves (API answers are small). A
- * redirect is handed back as it is, never followed.
+ * pictures uncopied); headers as an object, pairs or Headers, and an AbortSignal. The whole
+ * response is read before it resolves (API answers are small). A redirect is handed back as it
+ * is, never followed.
  */
 import { request as httpRequest, type IncomingMessage } from 'node:http';
 import { request as httpsRequest } from 'node:https';
