@@ -10,6 +10,15 @@ import { defaultSlackEncoder, type SlackEncoder } from '../slack/slackEncoder.ts
 import type { AnswerJob, Ask } from './answerJob.ts';
 import { editDeferredReply } from './discordDeferredReply.ts';
 import { deliverSlackAnswer } from './slackAnswer.ts';
+import { DEFAULT_ANSWERS_AT_ONCE } from '../../src/config/answersAtOnce.ts';
+import { ConcurrencyLimit } from '../../src/delivery/concurrencyLimit.ts';
+
+/**
+ * Longest an answer keeps its place among those at once: every HTTP call and forecast request has
+ * its own timeout, but one stuck anywhere else (a store that stops answering) must not hold the
+ * queue. After this the answer goes on, no longer counted, and the next one starts.
+ */
+export const ANSWER_PLACE_HELD_MS = 30_000;
 
 export interface AnswerDeskOptions {
   router: CommandRouter;
@@ -19,6 +28,13 @@ export interface AnswerDeskOptions {
   log: (level: 'warn' | 'error', text: string) => void;
   /** Per HTTP call of an answer. Default 10 s. */
   timeoutMs?: number;
+  /**
+   * How many answers are worked on at once (router and delivery); the rest wait in arrival order.
+   * Default DEFAULT_ANSWERS_AT_ONCE.
+   */
+  answersAtOnce?: number;
+  /** Default ANSWER_PLACE_HELD_MS (tests shorten it). */
+  placeHeldMs?: number;
 }
 
 export interface AnswerDesk {
@@ -33,6 +49,14 @@ export interface AnswerDesk {
  * acknowledged them. Slack: slackAnswer.ts (the response URL, which works even where the bot is not
  * a member, with pictures uploaded after; a watch posted as the bot). Discord: an edit of the
  * deferred reply.
+ *
+ * A few answers at a time, the rest queued in arrival order: on this one thread, a burst answered
+ * all at once interleaves, so every answer holds its message, pictures and connection until nearly
+ * all are done, and the first asked waits as long as the last. In turn, the first asked is answered
+ * first, and the thread's memory, connections and garbage collection stay those of a few answers
+ * (measured: src/config/answersAtOnce.ts). The price: a burst of lookups for places whose
+ * forecast is not cached waits for the forecast source a few at a time; where that matters, raise
+ * `chat.answersAtOnce`.
  */
 export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   const { router, log } = options;
@@ -42,6 +66,8 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
   const slackClient = options.slack ? new WebClient(options.slack.botToken, answerClientOptions(options.slack.apiUrl, timeoutMs)) : null;
   const discordRest = new REST({ ...interactionRestOptions(options.discord?.apiUrl), timeout: timeoutMs });
   const underWay = new Set<Promise<void>>();
+  const atOnce = new ConcurrencyLimit(options.answersAtOnce ?? DEFAULT_ANSWERS_AT_ONCE);
+  const placeHeldMs = options.placeHeldMs ?? ANSWER_PLACE_HELD_MS;
 
   function ask(question: Ask): Promise<Message> {
     return askRouter(
@@ -68,9 +94,21 @@ export function createAnswerDesk(options: AnswerDeskOptions): AnswerDesk {
     }
   }
 
+  /** The answer, holding one of the places at once until it is done or `placeHeldMs` has passed. */
+  async function answerInTurn(job: AnswerJob): Promise<void> {
+    let work: Promise<void> = Promise.resolve();
+    await atOnce.run(async () => {
+      work = answerOnce(job);
+      let timer: NodeJS.Timeout | undefined;
+      await Promise.race([work, new Promise<void>((resolve) => (timer = setTimeout(resolve, placeHeldMs)))]);
+      clearTimeout(timer);
+    });
+    await work;
+  }
+
   return {
     answer(job) {
-      const pending = answerOnce(job).finally(() => underWay.delete(pending));
+      const pending = answerInTurn(job).finally(() => underWay.delete(pending));
       underWay.add(pending);
       return pending;
     },

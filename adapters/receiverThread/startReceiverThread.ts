@@ -23,6 +23,8 @@ export interface ReceiverThreadOptions {
    * receiver thread keeps the process's. Absent: unchanged.
    */
   answerThreadNice?: number;
+  /** Answers this thread works on at once (createAnswerDesk's default when absent). */
+  answersAtOnce?: number;
 }
 
 export interface RunningReceiverThread {
@@ -78,6 +80,7 @@ export async function startReceiverThread(options: ReceiverThreadOptions): Promi
     ...(options.slack ? { slack: { botToken: options.slack.botToken, ...(options.slack.apiUrl ? { apiUrl: options.slack.apiUrl } : {}) } } : {}),
     ...(options.discord ? { discord: { ...(options.discord.apiUrl ? { apiUrl: options.discord.apiUrl } : {}) } } : {}),
     log,
+    ...(options.answersAtOnce === undefined ? {} : { answersAtOnce: options.answersAtOnce }),
   });
   const routes = new Map((options.textRoutes ?? []).map((route) => [route.path, route]));
   const settings: ReceiverThreadSettings = { slack: options.slack ?? null, discord: options.discord ?? null, textRoutePaths: [...routes.keys()], nice: niceOfThisThread() };

@@ -116,6 +116,7 @@ export async function startLapsewatch(options: StartOptions): Promise<number> {
         textRoutes: [{ path: '/metrics', render: async () => ({ contentType: metrics.registry.contentType, body: await metrics.registry.metrics() }) }],
         log: (level, text) => logger[level](text),
         answerThreadNice: ANSWER_THREAD_NICE,
+        answersAtOnce: config.config.chat.answersAtOnce,
       });
     } catch (error) {
       await store.close();

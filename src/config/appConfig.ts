@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { openMeteoConfigSchema } from '../forecast/openMeteoConfig.ts';
 import { localFooterLineSchema } from '../render/safetyFooter.ts';
 import { packagePath } from '../packageRoot.ts';
+import { DEFAULT_ANSWERS_AT_ONCE, MAX_ANSWERS_AT_ONCE } from './answersAtOnce.ts';
 
 /** The repository's config folder, wherever the process was started from. */
 export const CONFIG_DIR = `${packagePath('config')}/`;
@@ -40,6 +41,7 @@ export const appConfigSchema = z.object({
   schedule: z.object({ alertCheckEveryMinutes: z.number().int().min(5).max(360).default(30) }).strict().prefault({}),
   messages: z.object({ localFooterLine: localFooterLineSchema.optional() }).strict().prefault({}),
   http: z.object({ port: z.number().int().min(0).max(65535).default(3000) }).strict().prefault({}),
+  chat: z.object({ answersAtOnce: z.number().int().min(1).max(MAX_ANSWERS_AT_ONCE).default(DEFAULT_ANSWERS_AT_ONCE) }).strict().prefault({}),
 }).strict();
 
 export type AppConfig = z.output<typeof appConfigSchema>;
