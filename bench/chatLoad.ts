@@ -31,6 +31,7 @@ import { discordCommandName } from '../adapters/discord/commands.ts';
 import { ANSWER_THREAD_NICE } from '../src/app/botRuntime.ts';
 import { buildForecastSource } from '../src/app/buildForecastSource.ts';
 import { parseAppConfig } from '../src/config/appConfig.ts';
+import { DEFAULT_ANSWERS_AT_ONCE } from '../src/config/answersAtOnce.ts';
 import { DEMO_PLACES } from '../src/forecast/demoPlaces.ts';
 import { drawMixingChartSvg } from '../src/render/mixingChart.ts';
 import { PngCache } from '../src/render/pngCache.ts';
@@ -430,7 +431,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   // Latency on a shared machine says as much about its load as about us: print the load beside it.
   console.log(`  Slack receiver's start-up warm-up: ${slackWarmUpRequests()} signed requests to itself (npm start: ${RECEIVER_WARM_UP_REQUESTS}; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another)`);
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
-  console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE})`);
+  console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE}); answers worked on ${DEFAULT_ANSWERS_AT_ONCE} at once (npm start: chat.answersAtOnce, default ${DEFAULT_ANSWERS_AT_ONCE})`);
   console.log('pictures (median, drawn here on this thread; answers have them drawn on the picture thread, src/render/rasterThread.ts):');
   await printPictureFigures();
   const results: RunResult[] = [];
