@@ -32,7 +32,7 @@ describe('answer desk: a few answers at once, in arrival order', () => {
 
   it('works on at most answersAtOnce answers; the rest wait and are answered first asked, first answered', async () => {
     const router = new RouterDouble();
-    const desk = createAnswerDesk({ router, discord: { apiUrl: standIn.apiUrl }, log, answersAtOnce: 2 });
+    const desk = createAnswerDesk({ router, discord: { apiUrl: standIn.apiUrl }, log, answersAtOnce: 2, placeHeldMs: 30_000 });
     router.hold();
     const texts = ['Cinder Flats 1', 'Cinder Flats 2', 'Cinder Flats 3', 'Cinder Flats 4', 'Cinder Flats 5'];
     texts.forEach((text, index) => void desk.answer(job(`turn-${index}`, text)));
