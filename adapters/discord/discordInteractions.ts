@@ -23,6 +23,18 @@ function canManage(interaction: ChatInputCommandInteraction | ButtonInteraction)
   return interaction.memberPermissions?.has(PermissionFlagsBits.ManageChannels) ?? false;
 }
 
+/**
+ * Whether the bot may post its alerts here. Discord sends the app's permissions in this channel
+ * with every interaction: no request needed. Whether the channel is a thread comes from the cache
+ * the Guilds intent keeps, or from the channel the interaction carries (Partials.Channel,
+ * createDiscordBot.ts); one that is in neither (its guild unknown) is judged as a channel.
+ */
+function botCanPostHere(interaction: ChatInputCommandInteraction | ButtonInteraction): { botCanPost?: boolean } {
+  const inThread = interaction.channel?.isThread() ?? false;
+  const botCanPost = interaction.appPermissions?.has(channelPostPermissions(inThread));
+  return botCanPost === undefined ? {} : { botCanPost };
+}
+
 function whoAndWhere(interaction: ChatInputCommandInteraction | ButtonInteraction) {
   return {
     platform: 'discord' as const,
@@ -30,6 +42,7 @@ function whoAndWhere(interaction: ChatInputCommandInteraction | ButtonInteractio
     channelId: interaction.channelId,
     userId: interaction.user.id,
     canManageChannel: canManage(interaction),
+    ...botCanPostHere(interaction),
   };
 }
 
@@ -38,13 +51,7 @@ function askOf(interaction: Interaction, commandName: string): { interaction: Ch
   if (interaction.isChatInputCommand()) {
     if (interaction.commandName !== commandName) return null;
     const text = interaction.options.getString(discordTextOptionName) ?? '';
-    // Discord sends the app's permissions in this channel with every interaction: no request needed.
-    // Whether the channel is a thread comes from the cache the Guilds intent keeps, or from the
-    // channel the interaction carries (Partials.Channel, createDiscordBot.ts); one that is in
-    // neither (its guild unknown) is judged as a channel.
-    const inThread = interaction.channel?.isThread() ?? false;
-    const botCanPost = interaction.appPermissions?.has(channelPostPermissions(inThread));
-    return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text, ...(botCanPost === undefined ? {} : { botCanPost }) } } };
+    return { interaction, ask: { kind: 'command', request: { ...whoAndWhere(interaction), text } } };
   }
   if (interaction.isButton()) {
     const parsed = parseDiscordCustomId(interaction.customId);

@@ -28,6 +28,8 @@ export interface ActionRequest {
   actionId: ActionId;
   value: string;
   canManageChannel: boolean;
+  /** As for a command: where the platform says so with the press (Discord), else absent. */
+  botCanPost?: boolean;
 }
 
 /** The router never throws: every outcome, including a user's mistake, is a message. */

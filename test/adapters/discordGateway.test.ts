@@ -157,7 +157,12 @@ describe('Discord bot at the wire', () => {
       actionId: 'mute-rule',
       value: 'mute:coupling:cinder-flats',
       canManageChannel: true,
+      botCanPost: true,
     });
+    // A button press says whether the bot may post too (ending a mute turns its posts back on).
+    const refused = standIn.sendButton('end-mute:hdw-above|43.62,-115.48', MANAGE_CHANNELS, (1n << 10n) | SEND_MESSAGES);
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(refused.token));
+    expect(router.actions.at(-1)).toMatchObject({ actionId: 'end-mute', botCanPost: false });
   });
 
   it('routes the end-mute button of a mute notice', async () => {

@@ -134,12 +134,12 @@ export class DiscordStandIn extends RecordingServer {
     return { id, token };
   }
 
-  /** An INTERACTION_CREATE for a button press on one of our messages. */
-  sendButton(customId: string, permissions: bigint = SEND_MESSAGES): { id: string; token: string } {
+  /** An INTERACTION_CREATE for a button press on one of our messages (the app with its own permissions). */
+  sendButton(customId: string, permissions: bigint = SEND_MESSAGES, appPermissions: bigint = APP_CAN_POST): { id: string; token: string } {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
     this.dispatch('INTERACTION_CREATE', {
-      ...this.interactionBase(id, token, permissions, APP_CAN_POST, { id: standInChannelId, type: 0 }),
+      ...this.interactionBase(id, token, permissions, appPermissions, { id: standInChannelId, type: 0 }),
       type: 3,
       data: { custom_id: customId, component_type: 2 },
       message: this.messageObject(standInChannelId, { content: 'earlier answer' }),

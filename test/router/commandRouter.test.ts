@@ -218,8 +218,17 @@ describe('the command router', () => {
     expect(unknownPlace.title).toMatch(/No place called "Nowhere Flat".*Nothing was changed/);
     expect(await muted('43.6200,-115.4800')).toBe(true);
 
+    // Ending a mute turns the bot's posts back on: refused where the platform says it may not post.
+    const cannotPost = await router.handleCommand(request('unmute hdw-above Cinder Ridge', { channelId, botCanPost: false }));
+    expect(cannotPost.title).toBe(CANNOT_POST_HERE);
+    expect(await muted('43.6200,-115.4800')).toBe(true);
+    const byButton = await router.handleAction({ platform: 'discord', teamId: 'g', channelId: 'unmute-elsewhere', userId: 'fbann', actionId: 'end-mute', value: 'hdw-above|43.62,-115.48', canManageChannel: true, botCanPost: false });
+    expect(byButton.title).toBe(CANNOT_POST_HERE);
+
     const ended = await router.handleCommand(request('unmute hdw-above Cinder Ridge', { channelId }));
     expect(ended.kind).toBe('notice');
+    // The adapter is told the answer turned posts back on, so it can check it may post there.
+    expect(ended.postsToChannel).toBe(true);
     expect(ended.title).toMatch(/alerts again at Cinder Ridge/);
     expect(text(ended)).toMatch(/still stand are posted here at the next alert check/);
     expect(await muted('43.6200,-115.4800')).toBe(false);

@@ -5,7 +5,7 @@ import { locationKeyOf } from '../../store/storeKeys.ts';
 import { ALL_LOCATIONS, type Mute } from '../../store/storeTypes.ts';
 import { ruleValueProblems } from '../../watch/rules/checkRuleValues.ts';
 import { isRuleId, RULE_IDS, type Rule } from '../../watch/rules/rule.ts';
-import { errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
+import { CANNOT_POST_HERE, errorMessage, NEEDS_MANAGE_CHANNEL, noticeMessage } from '../replies.ts';
 import type { PlaceRef } from '../commandGrammar.ts';
 import { describePoint, resolvePlace, type ResolvedPlace } from '../resolvePlace.ts';
 import type { HandlerContext } from '../routerContext.ts';
@@ -133,11 +133,15 @@ export async function startMute(context: HandlerContext, ruleId: string, placeRe
 /**
  * Ends the channel's mutes of a rule now, at one place or (without one) everywhere. Its warnings
  * that still stand are told at the next alert check, as when a mute runs out (alertCheckCycle.ts).
+ * That turns the bot's posts back on, so, as for a watch, it is refused where the platform says
+ * the bot may not post, and its confirmation is marked for the adapter to post as the bot.
+ * (A mute needs no such check: it only holds posts back.)
  */
 export async function endMute(context: HandlerContext, ruleId: string, placeRef: PlaceRef | null): Promise<Message> {
   if (!context.request.canManageChannel) return errorMessage(NEEDS_MANAGE_CHANNEL, context.localFooterLine);
   const named = ruleNamed(context, ruleId);
   if (!named.ok) return named.message;
+  if (context.request.botCanPost === false) return errorMessage(CANNOT_POST_HERE, context.localFooterLine);
   const { rule } = named;
   let where: { locationKey: string | null; name: string } = { locationKey: null, name: 'everywhere' };
   if (placeRef) {
@@ -156,5 +160,5 @@ export async function endMute(context: HandlerContext, ruleId: string, placeRef:
   const places = await muteLocationNames(context, ended);
   const lines = placeRef ? [] : [`Mutes ended: ${ended.map((mute) => places.get(mute.locationKey)).join('; ')}.`];
   lines.push('Its warnings that still stand are posted here at the next alert check.');
-  return noticeMessage(`"${rule.name}" alerts again ${where.name}${placeRef ? '' : ' in this channel'}.`, lines, context.localFooterLine);
+  return { ...noticeMessage(`"${rule.name}" alerts again ${where.name}${placeRef ? '' : ' in this channel'}.`, lines, context.localFooterLine), postsToChannel: true };
 }
