@@ -56,8 +56,9 @@ export interface AnswerDesk {
  * all at once interleaves, so every answer holds its message, pictures and connection until nearly
  * all are done, and the first asked waits as long as the last. In turn, the first asked is answered
  * first and the thread holds the work of a few answers at a time. Measured (figures in
- * src/config/answersAtOnce.ts): lower acknowledgement and full-answer latencies, usually less CPU
- * per command; the process's peak memory in the chat bench did not change measurably. The price:
+ * src/config/answersAtOnce.ts): lower full-answer latencies, lower Discord acknowledgement
+ * latencies, usually less CPU per command; Slack's acknowledgements no better, often a little
+ * slower; the process's peak memory in the chat bench did not change measurably. The price:
  * a burst of answers that each wait on the network (lookups of places not yet cached) is let
  * through a few at a time, a wave a second at worst (ANSWER_PLACE_HELD_MS); where that matters,
  * raise `chat.answersAtOnce`.
