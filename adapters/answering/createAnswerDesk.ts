@@ -39,7 +39,7 @@ export interface AnswerDeskOptions {
    * Default DEFAULT_ANSWERS_AT_ONCE.
    */
   answersAtOnce?: number;
-  /** Default ANSWER_PLACE_HELD_MS (tests shorten it). */
+  /** Default ANSWER_PLACE_HELD_MS (tests set their own). */
   placeHeldMs?: number;
 }
 
