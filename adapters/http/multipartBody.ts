@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { bufferView } from './bufferView.ts';
 
 /** Field names and file names in a multipart header, escaped as the HTML standard's form encoding does. */
 function quoted(text: string): string {
@@ -15,7 +16,7 @@ export function multipartBody(fields: readonly MultipartField[]): { pieces: Buff
   for (const field of fields) {
     if ('bytes' in field) {
       pieces.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(field.name)}; filename=${quoted(field.fileName)}\r\nContent-Type: ${field.contentType}\r\n\r\n`, 'utf8'));
-      pieces.push(Buffer.from(field.bytes.buffer, field.bytes.byteOffset, field.bytes.byteLength), Buffer.from('\r\n'));
+      pieces.push(bufferView(field.bytes), Buffer.from('\r\n'));
     } else {
       pieces.push(Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name=${quoted(field.name)}\r\n\r\n${field.text}\r\n`, 'utf8'));
     }

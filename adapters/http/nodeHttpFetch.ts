@@ -14,6 +14,7 @@
  */
 import { request as httpRequest, type IncomingMessage } from 'node:http';
 import { request as httpsRequest } from 'node:https';
+import { bufferView } from './bufferView.ts';
 import { multipartBody, type MultipartField } from './multipartBody.ts';
 
 type FetchInput = string | URL;
@@ -51,9 +52,9 @@ async function encodeBody(body: unknown): Promise<Body | null> {
   if (body === undefined || body === null) return null;
   if (typeof body === 'string') return { pieces: [Buffer.from(body, 'utf8')], contentType: 'text/plain;charset=UTF-8' };
   if (body instanceof URLSearchParams) return { pieces: [Buffer.from(body.toString(), 'utf8')], contentType: 'application/x-www-form-urlencoded;charset=UTF-8' };
-  if (ArrayBuffer.isView(body)) return { pieces: [Buffer.from(body.buffer, body.byteOffset, body.byteLength)], contentType: null };
+  if (ArrayBuffer.isView(body)) return { pieces: [bufferView(body)], contentType: null };
   if (body instanceof ArrayBuffer) return { pieces: [Buffer.from(body)], contentType: null };
-  if (Array.isArray(body) && body.every((piece) => ArrayBuffer.isView(piece))) return { pieces: body.map((piece: ArrayBufferView) => Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength)), contentType: null };
+  if (Array.isArray(body) && body.every((piece) => ArrayBuffer.isView(piece))) return { pieces: body.map(bufferView), contentType: null };
   if (typeof (body as FormData).entries === 'function' && typeof (body as FormData).append === 'function') return multipart(body as FormData);
   if (isFileLike(body)) return { pieces: [Buffer.from(await body.arrayBuffer())], contentType: body.type || null };
   throw new TypeError(`this transport does not send a ${Object.prototype.toString.call(body)} body`);
