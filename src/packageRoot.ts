@@ -24,3 +24,6 @@ export const PACKAGE_ROOT = findPackageRoot();
 export function packagePath(...parts: string[]): string {
   return join(PACKAGE_ROOT, ...parts);
 }
+
+/** Lapsewatch's version, as its package.json gives it (clients name it to the platforms). */
+export const PACKAGE_VERSION: string = (JSON.parse(readFileSync(join(PACKAGE_ROOT, 'package.json'), 'utf8')) as { version: string }).version;

@@ -1,11 +1,12 @@
-import { Client, Events, GatewayIntentBits, Partials } from 'discord.js';
+import { Client, Events, GatewayIntentBits } from 'discord.js';
 import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import { discordCommandName } from './commands.ts';
-import { interactionRestOptions } from './interactionRestOptions.ts';
+import { fetchRequest } from './fetchRequest.ts';
+import { deferInteraction, DISCORD_API_BASE } from './deferInteraction.ts';
 import type { DiscordEncoder } from './discordEncoder.ts';
-import { createInteractionHandler } from './discordInteractions.ts';
+import { readRawInteraction } from './rawInteraction.ts';
 
 /** The receiving side: the gateway client and its credentials. */
 export interface DiscordReceiverOptions {
@@ -36,19 +37,28 @@ export interface RunningDiscordBot {
   stop(): Promise<void>;
 }
 
-/** Builds the discord.js client with our interaction handler; `startDiscordReceiver` logs it in. */
+/** Builds the discord.js client that reads our interactions; `startDiscordReceiver` logs it in. */
 export function createDiscordBot(options: DiscordReceiverOptions & { handOff: HandOff }): Client {
-  // Interactions arrive without any privileged intent; Guilds keeps the channel cache useful.
-  // Partials.Channel: a channel the cache lacks (a thread the client was not told of) is made from
-  // the channel the interaction carries, so whether it is a thread is known (discordInteractions.ts).
-  // This client only defers interactions; the answer edits the reply later through the
-  // interaction's webhook token (see answering/).
-  const client = new Client({ intents: [GatewayIntentBits.Guilds], partials: [Partials.Channel], rest: interactionRestOptions(options.apiUrl) });
+  // Interactions arrive without any intent. Guilds stays: discord.js says ready once the guilds
+  // READY lists have arrived, which without it takes its 15 s guild timeout.
+  const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: { makeRequest: fetchRequest, ...(options.apiUrl ? { api: options.apiUrl } : {}) } });
   const log = options.log ?? logToConsole;
-  const handle = createInteractionHandler({ commandName: discordCommandName(), handOff: options.handOff, log });
-  client.on(Events.InteractionCreate, (interaction) => {
-    if (interaction.applicationId !== options.applicationId) return;
-    void handle(interaction);
+  const apiBase = options.apiUrl ?? DISCORD_API_BASE;
+  const ours = { applicationId: options.applicationId, commandName: discordCommandName() };
+  // Interactions are read from the gateway packet itself (Events.Raw, which discord.js emits for
+  // every dispatch before it builds its own structures; not in its typed events, so the wire tests
+  // in test/adapters/discordGateway.test.ts are what hold it) and deferred at once: Discord gives
+  // 3 s to answer, the forecast may take longer. The answer later edits the deferred reply through
+  // the interaction's token (answering/). Never throws into discord.js.
+  client.on(Events.Raw, (packet: { t?: unknown; d?: unknown }) => {
+    if (packet.t !== 'INTERACTION_CREATE') return;
+    const interaction = readRawInteraction(packet.d, ours);
+    if (!interaction) return;
+    void deferInteraction(apiBase, interaction).then((deferred) => {
+      // Expired (more than 3 s late), a deleted channel, Discord down: nothing to tell the user through.
+      if (!deferred.ok) return log('warn', `interaction ${interaction.id} not acknowledged: ${deferred.reason}`);
+      options.handOff({ platform: 'discord', ask: interaction.ask, applicationId: interaction.applicationId, interactionToken: interaction.token });
+    });
   });
   client.on(Events.Error, (error) => log('error', `client error: ${error.message}`));
   return client;

@@ -63,6 +63,9 @@ describe('Discord bot at the wire', () => {
     const callback = await standIn.waitForCall((call) => call.path === `/api/v10/interactions/${id}/${token}/callback`);
     // The router is still held: the deferral did not wait for the answer.
     expect(callback.body).toMatchObject({ type: 5 });
+    // The interaction token is the credential: the bot token is not sent with the acknowledgement.
+    expect(callback.headers.authorization).toBeUndefined();
+    expect(callback.headers['user-agent']).toMatch(/^DiscordBot \(/);
     expect(standIn.callsTo(/messages\/@original$/).filter((call) => call.path.includes(token))).toHaveLength(0);
     router.release();
 
@@ -181,6 +184,39 @@ describe('Discord bot at the wire', () => {
     expect(router.commands.length + router.actions.length).toBe(before + 1);
     expect(standIn.callbackOf(other.id)).toBeUndefined();
     expect(standIn.callbackOf(button.id)).toBeUndefined();
+  });
+
+  it("ignores another application's interaction and a payload without its token, and answers the next", async () => {
+    const before = router.commands.length;
+    const foreign = standIn.sendAlteredCommand(discordCommandName(), 'help', { application_id: '1100000000000000099' });
+    const tokenless = standIn.sendAlteredCommand(discordCommandName(), 'help', { token: undefined });
+    const ours = standIn.sendCommand(discordCommandName(), 'help');
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(ours.token));
+    expect(router.commands.length).toBe(before + 1);
+    expect(standIn.callbackOf(foreign.id)).toBeUndefined();
+    expect(standIn.callbackOf(tokenless.id)).toBeUndefined();
+  });
+
+  it('waits out a 429 on the acknowledgement once, inside the 3 s window, then answers', async () => {
+    standIn.addFault({ path: /\/callback$/, status: 429, retryAfterSec: 0.2, body: { message: 'You are being rate limited.', retry_after: 0.2, global: false }, times: 1 });
+    const limited = standIn.sendCommand(discordCommandName(), 'Cinder Flats');
+    const edit = await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(limited.token));
+    const callbacks = standIn.calls.filter((call) => call.path.includes(`/interactions/${limited.id}/`));
+    expect(callbacks.map((call) => call.status)).toEqual([429, 204]);
+    expect(callbacks[1]!.at - callbacks[0]!.at).toBeGreaterThanOrEqual(180);
+    expect(edit.status).toBe(200);
+  });
+
+  it('does not wait out a 429 that would end after the 3 s window: the interaction is logged as not acknowledged', async () => {
+    standIn.addFault({ path: /\/callback$/, status: 429, retryAfterSec: 5, body: { message: 'You are being rate limited.', retry_after: 5, global: false }, times: 1 });
+    const before = router.commands.length;
+    const limited = standIn.sendCommand(discordCommandName(), 'Cinder Flats');
+    await standIn.waitForCall((call) => call.path.includes(`/interactions/${limited.id}/`) && call.status === 429);
+    const next = standIn.sendCommand(discordCommandName(), 'Cinder Flats');
+    await standIn.waitForCall((call) => call.method === 'PATCH' && call.path.includes(next.token));
+    expect(standIn.calls.filter((call) => call.path.includes(`/interactions/${limited.id}/`))).toHaveLength(1);
+    expect(router.commands.length).toBe(before + 1);
+    expect(logged.some((line) => line.includes(limited.id) && line.includes('429'))).toBe(true);
   });
 
   it('survives an interaction whose callback Discord refuses (expired token), and keeps answering', async () => {

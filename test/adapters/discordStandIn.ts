@@ -119,9 +119,21 @@ export class DiscordStandIn extends RecordingServer {
     appPermissions: bigint = APP_CAN_POST,
     channel: { id: string; type: number } = { id: standInChannelId, type: 0 },
   ): { id: string; token: string } {
+    return this.sendAlteredCommand(commandName, text, {}, permissions, appPermissions, channel);
+  }
+
+  /** As sendCommand, with top-level fields replaced, or removed where `alter` gives undefined: payloads that are not ours or not whole. */
+  sendAlteredCommand(
+    commandName: string,
+    text: string | undefined,
+    alter: Record<string, unknown>,
+    permissions: bigint = MANAGE_CHANNELS | SEND_MESSAGES,
+    appPermissions: bigint = APP_CAN_POST,
+    channel: { id: string; type: number } = { id: standInChannelId, type: 0 },
+  ): { id: string; token: string } {
     const id = nextSnowflake();
     const token = `itoken-${id}`;
-    this.dispatch('INTERACTION_CREATE', {
+    const payload: Record<string, unknown> = {
       ...this.interactionBase(id, token, permissions, appPermissions, channel),
       type: 2,
       data: {
@@ -130,7 +142,12 @@ export class DiscordStandIn extends RecordingServer {
         type: 1,
         ...(text !== undefined ? { options: [{ name: 'text', type: 3, value: text }] } : {}),
       },
-    });
+    };
+    for (const [field, value] of Object.entries(alter)) {
+      if (value === undefined) delete payload[field];
+      else payload[field] = value;
+    }
+    this.dispatch('INTERACTION_CREATE', payload);
     return { id, token };
   }
 

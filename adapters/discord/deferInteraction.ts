@@ -1,0 +1,67 @@
+import { InteractionResponseType } from 'discord.js';
+import { PACKAGE_VERSION } from '../../src/packageRoot.ts';
+import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
+
+/** Discord's own API base, used when no other is configured. */
+export const DISCORD_API_BASE = 'https://discord.com/api';
+/** Discord's window for the first answer to an interaction (developer docs, "Receiving and Responding"). */
+const ANSWER_WINDOW_MS = 3000;
+/** Discord asks API clients to name themselves as DiscordBot (url, version) (developer docs, "API Reference": user agent). */
+const USER_AGENT = `DiscordBot (https://lapsewatch.invalid, ${PACKAGE_VERSION})`;
+const DEFERRAL_BODY = JSON.stringify({ type: InteractionResponseType.DeferredChannelMessageWithSource });
+
+export type DeferralOutcome = { ok: true } | { ok: false; reason: string };
+
+/** How long a 429 answer asks to wait, in ms (its JSON retry_after in seconds, else the Retry-After header). */
+async function retryAfterMs(response: Response): Promise<number> {
+  try {
+    const body = (await response.json()) as { retry_after?: unknown };
+    if (typeof body.retry_after === 'number' && Number.isFinite(body.retry_after)) return Math.max(0, body.retry_after * 1000);
+  } catch {
+    // No JSON: the header below.
+  }
+  const header = Number(response.headers.get('retry-after'));
+  return Number.isFinite(header) ? Math.max(0, header * 1000) : Number.POSITIVE_INFINITY;
+}
+
+/** Discord's refusal in a line: the status and, when its JSON error body came, its message and code. */
+async function refusal(response: Response): Promise<string> {
+  const status = `Discord answered ${response.status}`;
+  try {
+    const body = (await response.json()) as { message?: unknown; code?: unknown };
+    if (typeof body.message === 'string') return `${status}: ${body.message}${typeof body.code === 'number' ? ` (code ${body.code})` : ''}`;
+  } catch {
+    // No JSON body.
+  }
+  return status;
+}
+
+/**
+ * Acknowledges an interaction with a deferred reply ("thinking…"), the answer to come as an edit
+ * (answering/discordDeferredReply.ts). The callback is sent straight from the gateway packet, not
+ * after discord.js has made its structures and queued the call in its REST client: under a burst
+ * of interactions that work came before every acknowledgement. The interaction token is the
+ * credential, so no bot token is sent, as discord.js does for this call. A 429 is waited out once
+ * when Discord's window still allows it.
+ */
+export async function deferInteraction(apiBase: string, interaction: { id: string; token: string }, receivedAtMs: number = Date.now()): Promise<DeferralOutcome> {
+  const url = `${apiBase}/v10/interactions/${interaction.id}/${encodeURIComponent(interaction.token)}/callback`;
+  const init = { method: 'POST', headers: { 'content-type': 'application/json', 'user-agent': USER_AGENT }, body: DEFERRAL_BODY };
+  for (let attempt = 1; ; attempt += 1) {
+    let response: Response;
+    try {
+      response = await nodeHttpFetch(url, init);
+    } catch (error) {
+      return { ok: false, reason: error instanceof Error ? error.message : String(error) };
+    }
+    if (response.ok) return { ok: true };
+    if (response.status === 429 && attempt === 1) {
+      const waitMs = await retryAfterMs(response);
+      if (Date.now() + waitMs < receivedAtMs + ANSWER_WINDOW_MS) {
+        await new Promise((resolve) => setTimeout(resolve, waitMs));
+        continue;
+      }
+    }
+    return { ok: false, reason: await refusal(response) };
+  }
+}
