@@ -8,6 +8,12 @@ export const DISCORD_API_BASE = 'https://discord.com/api';
 const ANSWER_WINDOW_MS = 3000;
 /** Discord asks API clients to name themselves as DiscordBot (url, version) (developer docs, "API Reference": user agent). */
 const USER_AGENT = `DiscordBot (https://lapsewatch.invalid, ${PACKAGE_VERSION})`;
+/**
+ * How long to wait for Discord's answer to the callback before giving the connection up. Past the
+ * window the acknowledgement is worth nothing, but an answer that comes late may still mean Discord
+ * took it, so a little more than the window is allowed before the question is dropped.
+ */
+export const DEFERRAL_TIMEOUT_MS = 5000;
 const DEFERRAL_BODY = JSON.stringify({ type: InteractionResponseType.DeferredChannelMessageWithSource });
 
 export type DeferralOutcome = { ok: true } | { ok: false; reason: string };
@@ -42,15 +48,20 @@ async function refusal(response: Response): Promise<string> {
  * after discord.js has made its structures and queued the call in its REST client: under a burst
  * of interactions that work came before every acknowledgement. The interaction token is the
  * credential, so no bot token is sent, as discord.js does for this call. A 429 is waited out once
- * when Discord's window still allows it.
+ * when Discord's window still allows it; a call with no answer is given up after `timeoutMs`.
  */
-export async function deferInteraction(apiBase: string, interaction: { id: string; token: string }, receivedAtMs: number = Date.now()): Promise<DeferralOutcome> {
+export async function deferInteraction(
+  apiBase: string,
+  interaction: { id: string; token: string },
+  options: { receivedAtMs?: number; timeoutMs?: number } = {},
+): Promise<DeferralOutcome> {
+  const receivedAtMs = options.receivedAtMs ?? Date.now();
   const url = `${apiBase}/v10/interactions/${interaction.id}/${encodeURIComponent(interaction.token)}/callback`;
   const init = { method: 'POST', headers: { 'content-type': 'application/json', 'user-agent': USER_AGENT }, body: DEFERRAL_BODY };
   for (let attempt = 1; ; attempt += 1) {
     let response: Response;
     try {
-      response = await nodeHttpFetch(url, init);
+      response = await nodeHttpFetch(url, { ...init, signal: AbortSignal.timeout(options.timeoutMs ?? DEFERRAL_TIMEOUT_MS) });
     } catch (error) {
       return { ok: false, reason: error instanceof Error ? error.message : String(error) };
     }
