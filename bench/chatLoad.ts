@@ -259,6 +259,21 @@ function answerThreadNice(): number {
   return tried === undefined ? ANSWER_THREAD_NICE : Number(tried);
 }
 
+/**
+ * Node flags of the load side (the stand-ins and the load generator, chatLoadProcess.ts). Discord's
+ * acks are timed there, on the stand-in's thread, so a stall of that thread is counted as the bot's.
+ * A scratch trace (each ack's times on both sides of the wire, and the load side's GC) found, with
+ * Node's default flags, clusters of acks timed 30-50 ms late that the bot had sent within 1 ms, in 5
+ * of 7 runs, beside scavenges of 5-22 ms; with a 1 MB semi-space (as the bot has) no such cluster in
+ * 17 runs, the slowest acks all in the first burst. LAPSEWATCH_BENCH_LOAD_SIDE_FLAGS="..." tries
+ * others ("" for none).
+ */
+const LOAD_SIDE_NODE_FLAGS = ['--max-semi-space-size=1'];
+function loadSideNodeFlags(): string[] {
+  const tried = process.env.LAPSEWATCH_BENCH_LOAD_SIDE_FLAGS;
+  return tried === undefined ? LOAD_SIDE_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
+}
+
 /** As npm start warms the Slack receiver; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another (0: none). */
 function slackWarmUpRequests(): number {
   const tried = process.env.LAPSEWATCH_BENCH_SLACK_WARM_UP;
@@ -275,7 +290,7 @@ const THREAD_LOG = (level: string, text: string): void => {
 
 async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
   const secret = 'bench-signing-secret';
-  const child = await startChild('chatLoadProcess.ts', ['slack'], 30_000);
+  const child = await startChild('chatLoadProcess.ts', ['slack'], 30_000, { nodeFlags: loadSideNodeFlags() });
   try {
     const receiver = { botToken: 'xoxb-bench', signingSecret: secret, apiUrl: String(child.hello.apiUrl), port: 0, host: '127.0.0.1', logLevel: LogLevel.ERROR, warmUpRequests: slackWarmUpRequests() };
     const running =
@@ -295,7 +310,7 @@ async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, thr
 }
 
 async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
-  const child = await startChild('chatLoadProcess.ts', ['discord'], 30_000);
+  const child = await startChild('chatLoadProcess.ts', ['discord'], 30_000, { nodeFlags: loadSideNodeFlags() });
   try {
     const receiver = { token: 'bench.discord.token', applicationId: String(child.hello.applicationId), apiUrl: String(child.hello.apiUrl) };
     const running =
@@ -432,6 +447,7 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
   console.log(`  Slack receiver's start-up warm-up: ${slackWarmUpRequests()} signed requests to itself (npm start: ${RECEIVER_WARM_UP_REQUESTS}; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another)`);
   console.log(`  machine: ${cpus().length} CPUs, load average ${loadavg().map((n) => n.toFixed(2)).join(' / ')}`);
   console.log(`  bot process ${process.pid} (this one, TypeScript through tsx): node ${process.execArgv.filter((flag) => flag !== '--import' && flag !== 'tsx').join(' ') || '(no flags)'}, MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? '(unset)'}; with the receivers in their own thread the answering thread runs at nice ${answerThreadNice()} (npm start: ${ANSWER_THREAD_NICE}); answers worked on ${DEFAULT_ANSWERS_AT_ONCE} at once (npm start: chat.answersAtOnce, default ${DEFAULT_ANSWERS_AT_ONCE})`);
+  console.log(`  load side (stand-ins and load generator, another process): node ${loadSideNodeFlags().join(' ') || '(no flags)'} (LAPSEWATCH_BENCH_LOAD_SIDE_FLAGS tries others)`);
   console.log('pictures (median, drawn here on this thread; answers have them drawn on the picture thread, src/render/rasterThread.ts):');
   await printPictureFigures();
   const results: RunResult[] = [];
