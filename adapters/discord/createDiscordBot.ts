@@ -6,7 +6,7 @@ import { discordCommandName } from './commands.ts';
 import { fetchRequest } from './fetchRequest.ts';
 import { deferInteraction, DISCORD_API_BASE } from './deferInteraction.ts';
 import type { DiscordEncoder } from './discordEncoder.ts';
-import { readRawInteraction } from './rawInteraction.ts';
+import { readRawInteraction, warmUpRawInteractionReader } from './rawInteraction.ts';
 
 /** The receiving side: the gateway client and its credentials. */
 export interface DiscordReceiverOptions {
@@ -45,6 +45,8 @@ export function createDiscordBot(options: DiscordReceiverOptions & { handOff: Ha
   const log = options.log ?? logToConsole;
   const apiBase = options.apiUrl ?? DISCORD_API_BASE;
   const ours = { applicationId: options.applicationId, commandName: discordCommandName() };
+  // Before the first real interaction: a cold reader cost the first burst after a start several ms.
+  warmUpRawInteractionReader(ours);
   // Interactions are read from the gateway packet itself (Events.Raw, which discord.js emits for
   // every dispatch before it builds its own structures; not in its typed events, so the wire tests
   // in test/adapters/discordGateway.test.ts are what hold it) and deferred at once: Discord gives
