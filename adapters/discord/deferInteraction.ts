@@ -1,4 +1,5 @@
 import { InteractionResponseType } from 'discord.js';
+import { retryAfterMs } from '../../src/forecast/retryPolicy.ts';
 import { PACKAGE_VERSION } from '../../src/packageRoot.ts';
 import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
 
@@ -18,28 +19,33 @@ const DEFERRAL_BODY = JSON.stringify({ type: InteractionResponseType.DeferredCha
 
 export type DeferralOutcome = { ok: true } | { ok: false; reason: string };
 
-/** How long a 429 answer asks to wait, in ms (its JSON retry_after in seconds, else the Retry-After header). */
-async function retryAfterMs(response: Response): Promise<number> {
+/** What Discord's JSON error body may carry; read once per refusal. */
+type ErrorBody = { message?: unknown; code?: unknown; retry_after?: unknown };
+
+/** The refusal's JSON body, or {} when it has none. */
+async function errorBody(response: Response): Promise<ErrorBody> {
   try {
-    const body = (await response.json()) as { retry_after?: unknown };
-    if (typeof body.retry_after === 'number' && Number.isFinite(body.retry_after)) return Math.max(0, body.retry_after * 1000);
+    const body: unknown = await response.json();
+    return typeof body === 'object' && body !== null ? (body as ErrorBody) : {};
   } catch {
-    // No JSON: the header below.
+    return {};
   }
-  const header = Number(response.headers.get('retry-after'));
-  return Number.isFinite(header) ? Math.max(0, header * 1000) : Number.POSITIVE_INFINITY;
+}
+
+/**
+ * How long a 429 answer asks to wait, in ms: its JSON retry_after (seconds, fractions allowed),
+ * else the Retry-After header (retryPolicy.ts reads it), else forever (no retry).
+ */
+function waitAsked(response: Response, body: ErrorBody): number {
+  if (typeof body.retry_after === 'number' && Number.isFinite(body.retry_after)) return Math.max(0, body.retry_after * 1000);
+  return retryAfterMs(response.headers.get('retry-after'), Date.now()) ?? Number.POSITIVE_INFINITY;
 }
 
 /** Discord's refusal in a line: the status and, when its JSON error body came, its message and code. */
-async function refusal(response: Response): Promise<string> {
+function refusal(response: Response, body: ErrorBody): string {
   const status = `Discord answered ${response.status}`;
-  try {
-    const body = (await response.json()) as { message?: unknown; code?: unknown };
-    if (typeof body.message === 'string') return `${status}: ${body.message}${typeof body.code === 'number' ? ` (code ${body.code})` : ''}`;
-  } catch {
-    // No JSON body.
-  }
-  return status;
+  if (typeof body.message !== 'string') return status;
+  return `${status}: ${body.message}${typeof body.code === 'number' ? ` (code ${body.code})` : ''}`;
 }
 
 /**
@@ -67,13 +73,14 @@ export async function deferInteraction(
       return { ok: false, reason: error instanceof Error ? error.message : String(error) };
     }
     if (response.ok) return { ok: true };
+    const body = await errorBody(response);
     if (response.status === 429 && attempt === 1) {
-      const waitMs = await retryAfterMs(response);
+      const waitMs = waitAsked(response, body);
       if (Date.now() + waitMs < receivedAtMs + ANSWER_WINDOW_MS) {
         await new Promise((resolve) => setTimeout(resolve, waitMs));
         continue;
       }
     }
-    return { ok: false, reason: await refusal(response) };
+    return { ok: false, reason: refusal(response, body) };
   }
 }

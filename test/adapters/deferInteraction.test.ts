@@ -47,4 +47,16 @@ describe('deferInteraction', () => {
     expect(seen).toEqual([{ url: '/api/v10/interactions/1100000000000000202/itoken-twice/callback', body: '{"type":5}' }]);
     expect(outcome).toEqual({ ok: false, reason: 'Discord answered 400: Interaction has already been acknowledged. (code 40060)' });
   });
+
+  it('does not try again after a 429 that says neither in its body nor in Retry-After how long to wait', async () => {
+    let requests = 0;
+    const base = await listen((request, response) => {
+      requests += 1;
+      request.resume();
+      request.on('end', () => response.writeHead(429).end());
+    });
+    const outcome = await deferInteraction(base, { id: '1100000000000000203', token: 'itoken-unsaid' });
+    expect(requests).toBe(1);
+    expect(outcome).toEqual({ ok: false, reason: 'Discord answered 429' });
+  });
 });

@@ -217,6 +217,8 @@ describe('Discord bot at the wire', () => {
     expect(standIn.calls.filter((call) => call.path.includes(`/interactions/${limited.id}/`))).toHaveLength(1);
     expect(router.commands.length).toBe(before + 1);
     expect(logged.some((line) => line.includes(limited.id) && line.includes('429'))).toBe(true);
+    // Discord's message is in the line too: the refusal's body is read once, for the wait and for the reason.
+    expect(logged.some((line) => line.includes(limited.id) && line.includes('You are being rate limited.'))).toBe(true);
   });
 
   it('survives an interaction whose callback Discord refuses (expired token), and keeps answering', async () => {
