@@ -44,7 +44,7 @@ import type { CommandRouter } from '../src/router/routerTypes.ts';
 import { openStore } from '../src/store/openStore.ts';
 import { loadRulesFile } from '../src/watch/rules/loadRules.ts';
 import { RouterDouble } from '../test/adapters/routerDouble.ts';
-import { startChild, type ChildLink } from './childLink.ts';
+import { nodeFlagsFromEnvironment, startChild, type ChildLink } from './childLink.ts';
 import { memorySampler } from './childSide.ts';
 import type { LoadAnswer, LoadRequest } from './chatLoadProcess.ts';
 
@@ -269,9 +269,8 @@ function answerThreadNice(): number {
  * others ("" for none).
  */
 const LOAD_SIDE_NODE_FLAGS = ['--max-semi-space-size=1'];
-function loadSideNodeFlags(): string[] {
-  const tried = process.env.LAPSEWATCH_BENCH_LOAD_SIDE_FLAGS;
-  return tried === undefined ? LOAD_SIDE_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
+function loadSideNodeFlags(): readonly string[] {
+  return nodeFlagsFromEnvironment('LAPSEWATCH_BENCH_LOAD_SIDE_FLAGS', LOAD_SIDE_NODE_FLAGS);
 }
 
 /** As npm start warms the Slack receiver; LAPSEWATCH_BENCH_SLACK_WARM_UP=N tries another (0: none). */

@@ -31,10 +31,15 @@ function exited(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => child.once('exit', () => resolve()));
 }
 
+/** Node flags from an environment variable when it is set ("" for none), else the defaults. */
+export function nodeFlagsFromEnvironment(variable: string, defaults: readonly string[]): readonly string[] {
+  const tried = process.env[variable];
+  return tried === undefined ? defaults : tried.split(/\s+/).filter(Boolean);
+}
+
 /** The bot's node flags as `npm start` sets them; LAPSEWATCH_BENCH_NODE_FLAGS="..." tries others (benchmarks print them). */
 export function botNodeFlagsForBench(): readonly string[] {
-  const tried = process.env.LAPSEWATCH_BENCH_NODE_FLAGS;
-  return tried === undefined ? BOT_NODE_FLAGS : tried.split(/\s+/).filter(Boolean);
+  return nodeFlagsFromEnvironment('LAPSEWATCH_BENCH_NODE_FLAGS', BOT_NODE_FLAGS);
 }
 
 export interface ChildOptions {
