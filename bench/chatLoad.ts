@@ -279,6 +279,15 @@ function slackWarmUpRequests(): number {
   return tried === undefined ? RECEIVER_WARM_UP_REQUESTS : Number(tried);
 }
 
+/**
+ * As npm start sends Discord's interaction callbacks: over one HTTP/2 connection opened at start
+ * (adapters/http/http2Origin.ts). LAPSEWATCH_BENCH_DISCORD_HTTP1=1 sends each over HTTP/1.1, as
+ * before, for comparison.
+ */
+function discordCallbacksOverHttp2(): boolean {
+  return process.env.LAPSEWATCH_BENCH_DISCORD_HTTP1 !== '1';
+}
+
 /** The receiver's own warm-up, as it reported it: printed under the table. */
 const receiverWarmUps: string[] = [];
 
@@ -311,7 +320,12 @@ async function slackLoad(log: AnswerLog, options: Required<ChatLoadOptions>, thr
 async function discordLoad(log: AnswerLog, options: Required<ChatLoadOptions>, threading: Threading): Promise<Measured> {
   const child = await startChild('chatLoadProcess.ts', ['discord'], 30_000, { nodeFlags: loadSideNodeFlags() });
   try {
-    const receiver = { token: 'bench.discord.token', applicationId: String(child.hello.applicationId), apiUrl: String(child.hello.apiUrl) };
+    const receiver = {
+      token: 'bench.discord.token',
+      applicationId: String(child.hello.applicationId),
+      apiUrl: String(child.hello.apiUrl),
+      callbacksOverHttp2: discordCallbacksOverHttp2(),
+    };
     const running =
       threading === 'same-thread'
         ? await startDiscordBot({ router: log, ...receiver, log: () => {} })
@@ -440,6 +454,11 @@ export async function runChatLoadBench(options: ChatLoadOptions = {}): Promise<v
     openConnectionsFirst()
       ? `  Slack connections: opened before the clock, one per caller, and kept alive (LAPSEWATCH_BENCH_OPEN_CONNECTIONS=1)`
       : `  Slack connections: the first timed burst opens ${settings.concurrency} at once, then they are kept alive (LAPSEWATCH_BENCH_OPEN_CONNECTIONS=1 opens them before the clock)`,
+  );
+  console.log(
+    discordCallbacksOverHttp2()
+      ? '  Discord callbacks: streams of one HTTP/2 connection opened at start, as npm start (LAPSEWATCH_BENCH_DISCORD_HTTP1=1 sends each over HTTP/1.1)'
+      : '  Discord callbacks: each over HTTP/1.1, a burst opening a connection per callback (LAPSEWATCH_BENCH_DISCORD_HTTP1=1)',
   );
   console.log(`  channels: Slack one per concurrent caller (${settings.concurrency}), Discord the stand-in guild's one; untimed first: ${WARM_UP_COMMANDS.map((text) => `"${text}"`).join(', ')} (a point no timed command asks), after npm start's assessment warm-up (${WARM_UP_ROUNDS} invented series)`);
   // Latency on a shared machine says as much about its load as about us: print the load beside it.

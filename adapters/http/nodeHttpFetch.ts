@@ -126,12 +126,15 @@ class NodeHttpResponse {
   }
 }
 
+/** A whole answer read off the wire, as the response-like the clients read (also for HTTP/2, http2Origin.ts). */
+export function bufferedResponse(url: string, status: number, statusText: string, headers: Headers, bytes: Buffer): Response {
+  return new NodeHttpResponse(status, statusText, headers, url, NULL_BODY_STATUSES.has(status) ? null : bytes) as unknown as Response;
+}
+
 function responseOf(url: URL, incoming: IncomingMessage, bytes: Buffer): Response {
-  const status = incoming.statusCode ?? 0;
   const headers = new Headers();
   for (let index = 0; index + 1 < incoming.rawHeaders.length; index += 2) headers.append(incoming.rawHeaders[index]!, incoming.rawHeaders[index + 1]!);
-  const response = new NodeHttpResponse(status, incoming.statusMessage ?? '', headers, url.href, NULL_BODY_STATUSES.has(status) ? null : bytes);
-  return response as unknown as Response;
+  return bufferedResponse(url.href, incoming.statusCode ?? 0, incoming.statusMessage ?? '', headers, bytes);
 }
 
 export async function nodeHttpFetch(input: FetchInput, init: RequestInit = {}): Promise<Response> {

@@ -1,10 +1,14 @@
 // The deferral's own edges at the wire, against bare local HTTP servers: a Discord that never
-// answers is given up, and the refusal names Discord's message. (Its normal path, 429 and expired
-// tokens run through the real discord.js client in discordGateway.test.ts.)
+// answers is given up, the refusal names Discord's message, and a callback the HTTP/2 connection
+// lost is sent again over HTTP/1.1. (Its normal path, 429 and expired tokens run through the real
+// discord.js client in discordGateway.test.ts.)
 import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
+import { constants, createServer as createHttp2Server, type Http2Server } from 'node:http2';
+import type { AddressInfo, Server as TcpServer } from 'node:net';
 import { afterEach, describe, expect, it } from 'vitest';
 import { deferInteraction } from '../../adapters/discord/deferInteraction.ts';
+import { Http2Origin } from '../../adapters/http/http2Origin.ts';
+import { serveBothHttpVersions } from './bothHttpVersions.ts';
 
 let server: Server | undefined;
 
@@ -15,10 +19,40 @@ async function listen(handler: Parameters<typeof createServer>[1]): Promise<stri
 }
 
 afterEach(async () => {
-  server?.closeAllConnections();
-  await new Promise((resolve) => server?.close(resolve));
+  if (server) {
+    server.closeAllConnections();
+    await new Promise((resolve) => server!.close(resolve));
+  }
   server = undefined;
+  for (const cleanup of cleanups.splice(0)) cleanup();
 });
+
+const cleanups: Array<() => void> = [];
+
+/** HTTP/1.1 by `http1`, HTTP/2 by `http2`, on one port; returns the API base and a connected Http2Origin. */
+async function listenBoth(http1: Server, http2: Http2Server): Promise<{ base: string; origin: Http2Origin }> {
+  const front: TcpServer = serveBothHttpVersions(http1, http2, (socket) => cleanups.push(() => socket.destroy()));
+  await new Promise<void>((resolve) => front.listen(0, '127.0.0.1', resolve));
+  cleanups.push(() => front.close());
+  const address = `http://127.0.0.1:${(front.address() as AddressInfo).port}`;
+  const origin = new Http2Origin(address);
+  cleanups.push(() => origin.close());
+  origin.open();
+  const deadline = Date.now() + 3_000;
+  while (!origin.ready() && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 10));
+  return { base: `${address}/api`, origin };
+}
+
+/** An HTTP/1.1 server answering every callback with `status` and `body`, counting them. */
+function http1Answering(status: number, body?: object): { server: Server; calls: string[] } {
+  const calls: string[] = [];
+  const http1 = createServer((request, response) => {
+    calls.push(request.url ?? '');
+    request.resume();
+    request.on('end', () => (body ? response.writeHead(status, { 'content-type': 'application/json' }).end(JSON.stringify(body)) : response.writeHead(status).end()));
+  });
+  return { server: http1, calls };
+}
 
 describe('deferInteraction', () => {
   it('gives up a callback Discord never answers after its timeout, and says so', async () => {
@@ -58,5 +92,61 @@ describe('deferInteraction', () => {
     const outcome = await deferInteraction(base, { id: '1100000000000000203', token: 'itoken-unsaid' });
     expect(requests).toBe(1);
     expect(outcome).toEqual({ ok: false, reason: 'Discord answered 429' });
+  });
+
+  it('goes over the HTTP/2 connection when it is up', async () => {
+    const http1 = http1Answering(204);
+    const streams: string[] = [];
+    const http2 = createHttp2Server();
+    http2.on('stream', (stream, headers) => {
+      streams.push(String(headers[':path']));
+      stream.resume();
+      stream.on('end', () => stream.respond({ ':status': 204 }, { endStream: true }));
+    });
+    const { base, origin } = await listenBoth(http1.server, http2);
+    const outcome = await deferInteraction(base, { id: '1100000000000000204', token: 'itoken-two' }, { http2: origin });
+    expect(outcome).toEqual({ ok: true });
+    expect(streams).toEqual(['/api/v10/interactions/1100000000000000204/itoken-two/callback']);
+    expect(http1.calls).toEqual([]);
+  });
+
+  it('sends a callback the HTTP/2 connection lost once more over HTTP/1.1', async () => {
+    const http1 = http1Answering(204);
+    const http2 = createHttp2Server();
+    http2.on('stream', (stream) => {
+      // Its own side of the reset is an error event too.
+      stream.on('error', () => undefined);
+      stream.close(constants.NGHTTP2_INTERNAL_ERROR);
+    });
+    const { base, origin } = await listenBoth(http1.server, http2);
+    expect(origin.ready()).toBe(true);
+    const outcome = await deferInteraction(base, { id: '1100000000000000205', token: 'itoken-reset' }, { http2: origin });
+    expect(outcome).toEqual({ ok: true });
+    expect(http1.calls).toEqual(['/api/v10/interactions/1100000000000000205/itoken-reset/callback']);
+  });
+
+  it("counts 'already acknowledged' on the resend as acknowledged: the lost stream had reached Discord", async () => {
+    const http1 = http1Answering(400, { message: 'Interaction has already been acknowledged.', code: 40060 });
+    const http2 = createHttp2Server();
+    // Reads the callback, then drops the connection before answering.
+    http2.on('stream', (stream) => {
+      stream.resume();
+      stream.on('end', () => stream.session?.destroy());
+    });
+    const { base, origin } = await listenBoth(http1.server, http2);
+    const outcome = await deferInteraction(base, { id: '1100000000000000206', token: 'itoken-landed' }, { http2: origin });
+    expect(http1.calls).toHaveLength(1);
+    expect(outcome).toEqual({ ok: true });
+  });
+
+  it('sends over HTTP/1.1 when the API host speaks no HTTP/2', async () => {
+    const http1 = http1Answering(204);
+    const base = await listen(http1.server.listeners('request')[0] as Parameters<typeof createServer>[1]);
+    const origin = new Http2Origin(new URL(base).origin);
+    cleanups.push(() => origin.close());
+    const outcome = await deferInteraction(base, { id: '1100000000000000207', token: 'itoken-one' }, { http2: origin });
+    expect(outcome).toEqual({ ok: true });
+    expect(http1.calls).toEqual(['/api/v10/interactions/1100000000000000207/itoken-one/callback']);
+    expect(origin.ready()).toBe(false);
   });
 });

@@ -66,10 +66,14 @@ describe('Discord bot at the wire', () => {
     // The interaction token is the credential: the bot token is not sent with the acknowledgement.
     expect(callback.headers.authorization).toBeUndefined();
     expect(callback.headers['user-agent']).toMatch(/^DiscordBot \(/);
+    // Over the HTTP/2 connection opened at start, not a connection of its own.
+    expect(callback.httpVersion).toBe('2.0');
     expect(standIn.callsTo(/messages\/@original$/).filter((call) => call.path.includes(token))).toHaveLength(0);
     router.release();
 
     const edit = await standIn.waitForCall((call) => call.method === 'PATCH' && call.path === `/api/v10/webhooks/${standInApplicationId}/${token}/messages/@original`);
+    // discord.js's REST calls stay on HTTP/1.1 (nodeHttpFetch).
+    expect(edit.httpVersion).toBe('1.1');
     const payload = DiscordStandIn.payloadOf(edit);
     expect(payload.content).toContain(footerStart);
     expect(payload.embeds[0].footer.text).toContain(footerStart);

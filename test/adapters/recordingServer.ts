@@ -1,7 +1,10 @@
 // The common part of the platform stand-ins: an HTTP server on 127.0.0.1 at a random port that
 // records every request, can be told to fail for a while, and stops cleanly (open sockets too).
+// HTTP/1.1 and HTTP/2 on the one port (bothHttpVersions.ts).
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
-import type { AddressInfo, Socket } from 'node:net';
+import { createServer as createHttp2Server, type Http2Server } from 'node:http2';
+import type { AddressInfo, Server as TcpServer, Socket } from 'node:net';
+import { serveBothHttpVersions } from './bothHttpVersions.ts';
 
 export interface RecordedCall {
   at: number;
@@ -10,6 +13,8 @@ export interface RecordedCall {
   path: string;
   query: URLSearchParams;
   headers: IncomingMessage['headers'];
+  /** "1.1", or "2.0" for a call over HTTP/2. */
+  httpVersion: string;
   raw: Buffer;
   /** JSON, form fields (as an object), multipart fields, or undefined for other bodies. */
   body: any;
@@ -60,6 +65,10 @@ async function parseBody(request: IncomingMessage, raw: Buffer, parseMultipart: 
 export class RecordingServer {
   readonly calls: RecordedCall[] = [];
   readonly server: Server;
+  /** Takes the connections that open with HTTP/2's preface; the rest go to `server`. */
+  private readonly http2Server: Http2Server;
+  /** What listens: it hands each connection to `server` or `http2Server` by its first bytes. */
+  private readonly front: TcpServer;
   private readonly faults: Fault[] = [];
   private readonly sockets = new Set<Socket>();
   private readonly listeners = new Set<() => void>();
@@ -70,19 +79,22 @@ export class RecordingServer {
   private keepCalls = true;
 
   constructor(private readonly handle: Handler) {
-    this.server = createServer((request, response) => {
+    const onRequest = (request: IncomingMessage, response: ServerResponse): void => {
       for (const listener of this.arrivalListeners) listener(request.method ?? 'GET', request.url ?? '/');
       void this.serve(request, response);
-    });
-    this.server.on('connection', (socket) => {
+    };
+    this.server = createServer(onRequest);
+    // HTTP/2's compatibility request and response have the members serve() reads and writes.
+    this.http2Server = createHttp2Server(onRequest as unknown as Parameters<typeof createHttp2Server>[0]);
+    this.front = serveBothHttpVersions(this.server, this.http2Server, (socket) => {
       this.sockets.add(socket);
       socket.on('close', () => this.sockets.delete(socket));
     });
   }
 
   async start(): Promise<this> {
-    await new Promise<void>((resolve) => this.server.listen({ port: 0, host: '127.0.0.1' }, resolve));
-    this.port = (this.server.address() as AddressInfo).port;
+    await new Promise<void>((resolve) => this.front.listen({ port: 0, host: '127.0.0.1' }, resolve));
+    this.port = (this.front.address() as AddressInfo).port;
     return this;
   }
 
@@ -162,7 +174,9 @@ export class RecordingServer {
 
   async stop(): Promise<void> {
     await new Promise<void>((resolve) => {
-      this.server.close(() => resolve());
+      this.front.close(() => resolve());
+      this.server.close();
+      this.http2Server.close();
       for (const socket of this.sockets) socket.destroy();
     });
   }
@@ -197,6 +211,7 @@ export class RecordingServer {
       path: decodeURIComponent(url.pathname),
       query: url.searchParams,
       headers: request.headers,
+      httpVersion: request.httpVersion,
       raw,
       body: undefined,
       status: 0,
