@@ -8,7 +8,7 @@
  * it has ended, and for a while after the origin turned HTTP/2 down (a proxy that speaks only
  * HTTP/1.1); the caller then sends that call the usual way.
  */
-import { connect, type ClientHttp2Session, type IncomingHttpHeaders } from 'node:http2';
+import { connect, constants, type ClientHttp2Session, type IncomingHttpHeaders } from 'node:http2';
 import { bufferedResponse } from './nodeHttpFetch.ts';
 
 export interface Http2OriginTimings {
@@ -44,7 +44,8 @@ export class Http2Origin {
   private lastCallMs = 0;
   private timer: NodeJS.Timeout | null = null;
   private closed = false;
-
+  private openedAtMs = 0;
+  /** Why the connection being made failed, for `onFailedAttempt`. */
   private lastError: string | null = null;
 
   constructor(
@@ -67,6 +68,7 @@ export class Http2Origin {
     const session = connect(this.origin);
     this.session = session;
     this.connected = false;
+    this.openedAtMs = Date.now();
     // Never what keeps the process alive; the receiver's own lifetime decides.
     session.unref();
     // Up once the server's SETTINGS have come: the TCP connection alone may be to a server that
@@ -104,7 +106,7 @@ export class Http2Origin {
       };
       const onAbort = () => {
         if (settle()) reject(signal!.reason);
-        stream.close();
+        stream.close(constants.NGHTTP2_CANCEL);
       };
       signal?.addEventListener('abort', onAbort, { once: true });
       let answer: IncomingHttpHeaders = {};
@@ -144,7 +146,8 @@ export class Http2Origin {
   private forget(session: ClientHttp2Session): void {
     if (this.session !== session) return;
     // A connection that never came up is not tried again for a while: the calls go the usual way.
-    if (!this.connected) {
+    // (One closed while being made because the receiver is stopping is no failure.)
+    if (!this.connected && !this.closed) {
       this.notBeforeMs = Date.now() + this.timings.retryAfterFailureMs;
       this.onFailedAttempt(this.lastError ?? 'closed before the server said HTTP/2');
     }
@@ -157,7 +160,12 @@ export class Http2Origin {
 
   private keepOrClose(): void {
     const session = this.session;
-    if (!session || !this.connected) return;
+    if (!session) return;
+    if (!this.connected) {
+      // An attempt with no answer at all (packets dropped) ends here rather than at the system's TCP timeout.
+      if (Date.now() - this.openedAtMs >= this.timings.pingIntervalMs) session.destroy(new Error(`no HTTP/2 answer within ${this.timings.pingIntervalMs} ms`));
+      return;
+    }
     // Quiet for long, or deaf since the last PING: the next call opens a new one.
     if (this.pingUnanswered) return void session.destroy();
     if (Date.now() - this.lastCallMs >= this.timings.idleCloseMs) return void session.close();

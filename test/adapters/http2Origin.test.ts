@@ -184,4 +184,21 @@ describe('Http2Origin', () => {
     await until(() => http2.ready(), 'connected');
     await expect(post(http2, origin, '/lost', '{}', AbortSignal.timeout(5_000))).rejects.toThrow(/ended without an answer/);
   });
+
+  it('gives up an attempt that gets no answer at all, and says why; one stopped while being made is no failure', async () => {
+    // Accepts connections and never says a word.
+    const silent = createTcpServer(() => undefined);
+    const origin = await listen(silent);
+    const failures: string[] = [];
+    const http2 = opened(origin, { pingIntervalMs: 60, idleCloseMs: 600_000, retryAfterFailureMs: 600_000 }, (reason) => failures.push(reason));
+    await until(() => failures.length === 1, 'given up');
+    expect(failures[0]).toMatch(/no HTTP\/2 answer within 60 ms/);
+    expect(http2.ready()).toBe(false);
+
+    const stopped: string[] = [];
+    const stopping = opened(origin, SLOW, (reason) => stopped.push(reason));
+    stopping.close();
+    await new Promise((resolve) => setTimeout(resolve, 100));
+    expect(stopped).toEqual([]);
+  });
 });
