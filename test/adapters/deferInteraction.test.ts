@@ -44,14 +44,14 @@ async function listenBoth(http1: Server, http2: Http2Server): Promise<{ base: st
 }
 
 /** An HTTP/1.1 server answering every callback with `status` and `body`, counting them. */
-function http1Answering(status: number, body?: object): { server: Server; calls: string[] } {
+function http1Answering(status: number, body?: object): { handler: Parameters<typeof createServer>[1]; server: Server; calls: string[] } {
   const calls: string[] = [];
-  const http1 = createServer((request, response) => {
+  const handler: Parameters<typeof createServer>[1] = (request, response) => {
     calls.push(request.url ?? '');
     request.resume();
     request.on('end', () => (body ? response.writeHead(status, { 'content-type': 'application/json' }).end(JSON.stringify(body)) : response.writeHead(status).end()));
-  });
-  return { server: http1, calls };
+  };
+  return { handler, server: createServer(handler), calls };
 }
 
 describe('deferInteraction', () => {
@@ -141,9 +141,15 @@ describe('deferInteraction', () => {
 
   it('sends over HTTP/1.1 when the API host speaks no HTTP/2', async () => {
     const http1 = http1Answering(204);
-    const base = await listen(http1.server.listeners('request')[0] as Parameters<typeof createServer>[1]);
-    const origin = new Http2Origin(new URL(base).origin);
+    const base = await listen(http1.handler);
+    let failedAttempts = 0;
+    const origin = new Http2Origin(new URL(base).origin, undefined, () => (failedAttempts += 1));
     cleanups.push(() => origin.close());
+    // The attempt at HTTP/2 has been made and refused before the callback.
+    origin.open();
+    const deadline = Date.now() + 3_000;
+    while (failedAttempts === 0 && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 10));
+    expect(failedAttempts).toBe(1);
     const outcome = await deferInteraction(base, { id: '1100000000000000207', token: 'itoken-one' }, { http2: origin });
     expect(outcome).toEqual({ ok: true });
     expect(http1.calls).toEqual(['/api/v10/interactions/1100000000000000207/itoken-one/callback']);
