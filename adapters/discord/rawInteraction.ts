@@ -52,7 +52,7 @@ export interface OurInteraction {
  * What the bot's own posts in a channel need: alerts and summaries are embeds, some with a chart.
  * In a thread, Discord asks for Send Messages in Threads instead of Send Messages.
  */
-export function channelPostPermissions(inThread: boolean): bigint[] {
+function channelPostPermissions(inThread: boolean): bigint[] {
   return [PermissionFlagsBits.ViewChannel, inThread ? PermissionFlagsBits.SendMessagesInThreads : PermissionFlagsBits.SendMessages, PermissionFlagsBits.EmbedLinks, PermissionFlagsBits.AttachFiles];
 }
 
