@@ -101,6 +101,9 @@ describe('npm start with Slack and Discord credentials', { timeout: 90_000 }, ()
     expect(edit.status).toBe(200);
     expect(JSON.stringify(DiscordStandIn.payloadOf(edit))).toContain(SAFETY_FOOTER.slice(0, 40));
     expect(edit.body['files[0]']).toMatchObject({ fileName: 'mixing-48h.png' });
+    // The deferral went over the HTTP/2 connection the receiver thread opened at start.
+    const callback = discordStandIn.calls.find((call) => call.path.endsWith(`/${token}/callback`));
+    expect(callback?.httpVersion).toBe('2.0');
   });
 
   it('serves Prometheus metrics made by the main thread on the receiver port', async () => {
