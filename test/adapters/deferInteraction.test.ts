@@ -8,6 +8,7 @@ import type { AddressInfo, Server as TcpServer } from 'node:net';
 import { afterEach, describe, expect, it } from 'vitest';
 import { deferInteraction } from '../../adapters/discord/deferInteraction.ts';
 import { Http2Origin } from '../../adapters/http/http2Origin.ts';
+import { waitUntil } from '../waitUntil.ts';
 import { serveBothHttpVersions } from './bothHttpVersions.ts';
 
 let server: Server | undefined;
@@ -38,8 +39,7 @@ async function listenBoth(http1: Server, http2: Http2Server): Promise<{ base: st
   const origin = new Http2Origin(address);
   cleanups.push(() => origin.close());
   origin.open();
-  const deadline = Date.now() + 3_000;
-  while (!origin.ready() && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 10));
+  await waitUntil(() => origin.ready(), 3_000, 'the HTTP/2 connection', 10);
   return { base: `${address}/api`, origin };
 }
 
@@ -147,8 +147,7 @@ describe('deferInteraction', () => {
     cleanups.push(() => origin.close());
     // The attempt at HTTP/2 has been made and refused before the callback.
     origin.open();
-    const deadline = Date.now() + 3_000;
-    while (failedAttempts === 0 && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 10));
+    await waitUntil(() => failedAttempts > 0, 3_000, 'the refused attempt at HTTP/2', 10);
     expect(failedAttempts).toBe(1);
     const outcome = await deferInteraction(base, { id: '1100000000000000207', token: 'itoken-one' }, { http2: origin });
     expect(outcome).toEqual({ ok: true });

@@ -7,6 +7,7 @@ import { createServer as createTcpServer, type AddressInfo, type Server as TcpSe
 import { Duplex } from 'node:stream';
 import { afterEach, describe, expect, it } from 'vitest';
 import { Http2Origin, type Http2OriginTimings } from '../../adapters/http/http2Origin.ts';
+import { waitUntil } from '../waitUntil.ts';
 
 const SLOW: Http2OriginTimings = { pingIntervalMs: 60_000, idleCloseMs: 600_000, retryAfterFailureMs: 600_000 };
 
@@ -54,13 +55,8 @@ function opened(origin: string, timings: Http2OriginTimings = SLOW, onFailedAtte
   return http2;
 }
 
-async function until(condition: () => boolean, what: string, timeoutMs = 3_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (!condition()) {
-    if (Date.now() > deadline) throw new Error(`not ${what} within ${timeoutMs} ms`);
-    await new Promise((resolve) => setTimeout(resolve, 10));
-  }
-}
+/** The shared wait, checking often: these connections come and go within milliseconds. */
+const until = (condition: () => boolean, what: string): Promise<void> => waitUntil(condition, 3_000, what, 10);
 
 const post = (http2: Http2Origin, origin: string, path: string, body = '{"type":5}', signal?: AbortSignal) =>
   http2.fetch(`${origin}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', 'user-agent': 'lapsewatch-test' }, body, ...(signal ? { signal } : {}) });
@@ -70,7 +66,7 @@ describe('Http2Origin', () => {
     const { server, sessions } = echoServer();
     const origin = await listen(server);
     const http2 = opened(origin);
-    await until(() => http2.ready(), 'connected');
+    await until(() => http2.ready(), 'the connection');
 
     const answers = await Promise.all([1, 2, 3, 4, 5].map((n) => post(http2, origin, `/call/${n}?q=${n}`, `{"n":${n}}`)));
     expect(sessions).toHaveLength(1);
@@ -92,8 +88,8 @@ describe('Http2Origin', () => {
     const origin = await listen(http1);
     const failures: string[] = [];
     const http2 = opened(origin, { ...SLOW, retryAfterFailureMs: 300 }, (reason) => failures.push(reason));
-    await until(() => connections === 1, 'tried');
-    await until(() => failures.length === 1, 'told of the failed attempt');
+    await until(() => connections === 1, 'the first attempt');
+    await until(() => failures.length === 1, 'word of the failed attempt');
     expect(failures[0]).not.toBe('');
     expect(http2.ready()).toBe(false);
     await expect(post(http2, origin, '/x')).rejects.toThrow(/no HTTP\/2 connection/);
@@ -103,20 +99,20 @@ describe('Http2Origin', () => {
     expect(connections).toBe(1);
     await new Promise((resolve) => setTimeout(resolve, 300));
     http2.open();
-    await until(() => connections === 2, 'tried again after the wait');
-    await until(() => failures.length === 2, 'told again');
+    await until(() => connections === 2, 'a second attempt after the wait');
+    await until(() => failures.length === 2, 'word of the second attempt');
   });
 
   it('makes a new connection after the server has sent GOAWAY', async () => {
     const { server, sessions } = echoServer();
     const origin = await listen(server);
     const http2 = opened(origin);
-    await until(() => http2.ready(), 'connected');
+    await until(() => http2.ready(), 'the connection');
     sessions[0]!.close();
-    await until(() => !http2.ready(), 'given up');
+    await until(() => !http2.ready(), 'the connection given up');
 
     http2.open();
-    await until(() => http2.ready(), 'connected again');
+    await until(() => http2.ready(), 'a new connection');
     expect(sessions).toHaveLength(2);
     expect((await post(http2, origin, '/after')).status).toBe(200);
   });
@@ -125,11 +121,11 @@ describe('Http2Origin', () => {
     const { server, sessions } = echoServer();
     const origin = await listen(server);
     const http2 = opened(origin, { pingIntervalMs: 40, idleCloseMs: 150, retryAfterFailureMs: 600_000 });
-    await until(() => http2.ready(), 'connected');
-    await until(() => !http2.ready(), 'closed when quiet');
+    await until(() => http2.ready(), 'the connection');
+    await until(() => !http2.ready(), 'the quiet connection closed');
     expect(sessions[0]!.closed || sessions[0]!.destroyed).toBe(true);
     http2.open();
-    await until(() => http2.ready(), 'connected again');
+    await until(() => http2.ready(), 'a new connection');
     expect(sessions).toHaveLength(2);
   });
 
@@ -156,12 +152,12 @@ describe('Http2Origin', () => {
     });
     const origin = await listen(tcp);
     const http2 = opened(origin, { pingIntervalMs: 60, idleCloseMs: 600_000, retryAfterFailureMs: 600_000 });
-    await until(() => http2.ready(), 'connected');
+    await until(() => http2.ready(), 'the connection');
     // Calls keep it from going idle; PINGs are answered while the server hears.
     await new Promise((resolve) => setTimeout(resolve, 200));
     expect(http2.ready()).toBe(true);
     deaf = true;
-    await until(() => !http2.ready(), 'given up when deaf');
+    await until(() => !http2.ready(), 'the deaf connection given up');
     await until(() => sockets[0]!.destroyed, 'its socket closed');
   });
 
@@ -170,7 +166,7 @@ describe('Http2Origin', () => {
     server.on('stream', () => undefined);
     const origin = await listen(server);
     const http2 = opened(origin);
-    await until(() => http2.ready(), 'connected');
+    await until(() => http2.ready(), 'the connection');
     const started = Date.now();
     await expect(post(http2, origin, '/silent', '{}', AbortSignal.timeout(150))).rejects.toMatchObject({ name: 'TimeoutError' });
     expect(Date.now() - started).toBeLessThan(2_000);
@@ -181,7 +177,7 @@ describe('Http2Origin', () => {
     server.on('stream', (stream) => stream.session?.destroy());
     const origin = await listen(server);
     const http2 = opened(origin);
-    await until(() => http2.ready(), 'connected');
+    await until(() => http2.ready(), 'the connection');
     await expect(post(http2, origin, '/lost', '{}', AbortSignal.timeout(5_000))).rejects.toThrow(/ended without an answer/);
   });
 
@@ -191,7 +187,7 @@ describe('Http2Origin', () => {
     const origin = await listen(silent);
     const failures: string[] = [];
     const http2 = opened(origin, { pingIntervalMs: 60, idleCloseMs: 600_000, retryAfterFailureMs: 600_000 }, (reason) => failures.push(reason));
-    await until(() => failures.length === 1, 'given up');
+    await until(() => failures.length === 1, 'the connection given up');
     expect(failures[0]).toMatch(/no HTTP\/2 answer within 60 ms/);
     expect(http2.ready()).toBe(false);
 

@@ -144,15 +144,6 @@ export function countDiscord(discord: DiscordStandIn): DeliveryCounts {
   };
 }
 
-/** Resolves when `predicate` holds, checking every 50 ms; rejects after `timeoutMs`. */
-export async function waitUntil(predicate: () => boolean | Promise<boolean>, timeoutMs: number, what: string): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (!(await predicate())) {
-    if (Date.now() > deadline) throw new Error(`timed out after ${timeoutMs} ms waiting for ${what}`);
-    await new Promise((resolve) => setTimeout(resolve, 50));
-  }
-}
-
 /** Every seeded row is sent; returns how many are not. */
 export async function unsentRows(store: Store, ids: string[]): Promise<number> {
   let unsent = 0;

@@ -13,7 +13,8 @@ import type { Store } from '../../src/store/storeTypes.ts';
 import { SlackStandIn } from '../adapters/slackStandIn.ts';
 import { DiscordStandIn } from '../adapters/discordStandIn.ts';
 import { capturingLogger, openTempSqliteStore } from '../delivery/deliveryFixtures.ts';
-import { countDiscord, countSlack, seedFanOut, unsentRows, waitUntil } from './faultHarness.ts';
+import { countDiscord, countSlack, seedFanOut, unsentRows } from './faultHarness.ts';
+import { waitUntil } from '../waitUntil.ts';
 
 const OUTAGE_MS = Number(process.env.LAPSEWATCH_FAULT_OUTAGE_MS ?? (process.env.CI ? 20_000 : 60_000));
 const ALERTS = 200;

@@ -8,7 +8,8 @@ import type { Store } from '../../src/store/storeTypes.ts';
 import { SlackStandIn } from '../adapters/slackStandIn.ts';
 import { DiscordStandIn } from '../adapters/discordStandIn.ts';
 import { testPostgresUrl } from '../delivery/deliveryFixtures.ts';
-import { countDiscord, countSlack, seedFanOut, spawnSender, unsentRows, waitUntil } from './faultHarness.ts';
+import { countDiscord, countSlack, seedFanOut, spawnSender, unsentRows } from './faultHarness.ts';
+import { waitUntil } from '../waitUntil.ts';
 import { startOwnPostgres, type OwnPostgres } from './faultPostgres.ts';
 
 const pgAvailable = testPostgresUrl() !== null;
