@@ -3,7 +3,7 @@ import type { CommandRouter } from '../../src/router/routerTypes.ts';
 import type { HandOff } from '../answering/answerJob.ts';
 import { createAnswerDesk } from '../answering/createAnswerDesk.ts';
 import { discordCommandName } from './commands.ts';
-import { fetchRequest } from './fetchRequest.ts';
+import { discordRestBase } from './fetchRequest.ts';
 import { HTTP2_ORIGIN_TIMINGS, Http2Origin } from '../http/http2Origin.ts';
 import { deferInteraction, DISCORD_API_BASE } from './deferInteraction.ts';
 import type { DiscordEncoder } from './discordEncoder.ts';
@@ -54,7 +54,7 @@ export interface DiscordReceiverParts {
 export function createDiscordBot(options: DiscordReceiverOptions & { handOff: HandOff }): DiscordReceiverParts {
   // Interactions arrive without any intent. Guilds stays: discord.js says ready once the guilds
   // READY lists have arrived, which without it takes its 15 s guild timeout.
-  const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: { makeRequest: fetchRequest, ...(options.apiUrl ? { api: options.apiUrl } : {}) } });
+  const client = new Client({ intents: [GatewayIntentBits.Guilds], rest: discordRestBase(options.apiUrl) });
   const log = options.log ?? logToConsole;
   const apiBase = options.apiUrl ?? DISCORD_API_BASE;
   const ours = { applicationId: options.applicationId, commandName: discordCommandName() };

@@ -8,7 +8,7 @@ import { footerOf } from '../../src/render/safetyFooter.ts';
 import { fitWithTail } from '../../src/render/textFit.ts';
 import { defaultDiscordEncoder, type DiscordEncoder } from './discordEncoder.ts';
 import { discordPostOutcome, isInvalidFormBody } from './discordPostOutcome.ts';
-import { fetchRequest } from './fetchRequest.ts';
+import { discordRestBase } from './fetchRequest.ts';
 import { nonceFromKey } from './nonceFromKey.ts';
 import { discordSendData } from './discordSendData.ts';
 
@@ -57,12 +57,11 @@ function shortBody(message: Message, nonce: string): Body {
  */
 export function createDiscordPoster(options: DiscordPosterOptions): ChannelPoster {
   const rest = new REST({
-    ...(options.apiUrl ? { api: options.apiUrl } : {}),
+    ...discordRestBase(options.apiUrl),
     retries: 0,
     rejectOnRateLimit: () => true,
     offset: 0,
     timeout: options.timeoutMs ?? 10_000,
-    makeRequest: fetchRequest,
   }).setToken(options.token);
   const encode = options.encode ?? defaultDiscordEncoder;
 

@@ -11,4 +11,9 @@ import { nodeHttpFetch } from '../http/nodeHttpFetch.ts';
  * Slack and Discord run in one process. nodeHttpFetch encodes the FormData itself and sends
  * through node:http, whatever the dispatcher, at a fraction of fetch's CPU per call.
  */
-export const fetchRequest: RESTOptions['makeRequest'] = (url, init) => nodeHttpFetch(url, init as RequestInit) as ReturnType<RESTOptions['makeRequest']>;
+const fetchRequest: RESTOptions['makeRequest'] = (url, init) => nodeHttpFetch(url, init as RequestInit) as ReturnType<RESTOptions['makeRequest']>;
+
+/** What every Discord REST client we make shares: this transport, and the configured API base when there is one. */
+export function discordRestBase(apiUrl: string | undefined): Pick<RESTOptions, 'makeRequest'> & Partial<Pick<RESTOptions, 'api'>> {
+  return { makeRequest: fetchRequest, ...(apiUrl ? { api: apiUrl } : {}) };
+}

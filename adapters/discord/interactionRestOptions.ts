@@ -1,5 +1,5 @@
 import type { RESTOptions } from 'discord.js';
-import { fetchRequest } from './fetchRequest.ts';
+import { discordRestBase } from './fetchRequest.ts';
 
 /** A ceiling for our own client-side queue, far above any burst an incident channel produces. */
 const INTERACTION_REPLIES_PER_SECOND = 1000;
@@ -14,5 +14,5 @@ const INTERACTION_REPLIES_PER_SECOND = 1000;
  * that keeps the default.
  */
 export function interactionRestOptions(apiUrl: string | undefined): Partial<RESTOptions> {
-  return { makeRequest: fetchRequest, globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND, ...(apiUrl ? { api: apiUrl } : {}) };
+  return { ...discordRestBase(apiUrl), globalRequestsPerSecond: INTERACTION_REPLIES_PER_SECOND };
 }

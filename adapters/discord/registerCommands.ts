@@ -1,6 +1,6 @@
 import { REST, Routes } from 'discord.js';
 import { discordCommandDefinitions } from './commands.ts';
-import { fetchRequest } from './fetchRequest.ts';
+import { discordRestBase } from './fetchRequest.ts';
 
 export interface RegisterCommandsOptions {
   token: string;
@@ -18,7 +18,7 @@ export interface RegisterCommandsResult {
 
 /** Replaces the application's commands with ours (a bulk PUT, so removed commands disappear). */
 export async function registerDiscordCommands(options: RegisterCommandsOptions): Promise<RegisterCommandsResult> {
-  const rest = new REST({ ...(options.apiUrl ? { api: options.apiUrl } : {}), retries: 1, makeRequest: fetchRequest }).setToken(options.token);
+  const rest = new REST({ ...discordRestBase(options.apiUrl), retries: 1 }).setToken(options.token);
   const route = options.guildId
     ? Routes.applicationGuildCommands(options.applicationId, options.guildId)
     : Routes.applicationCommands(options.applicationId);
