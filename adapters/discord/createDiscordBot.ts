@@ -61,10 +61,11 @@ export function createDiscordBot(options: DiscordReceiverOptions & { handOff: Ha
   // Opened now, so that it is up before the first interaction: a burst of them then opens no
   // connection each (8 alternating pairs of the chat bench: Discord ack p99 12.4-23.7 ms, against
   // 22.4-62.0 with a connection per callback).
+  const apiOrigin = new URL(apiBase).origin;
   const callbacks =
     options.callbacksOverHttp2 === false
       ? null
-      : new Http2Origin(new URL(apiBase).origin, HTTP2_ORIGIN_TIMINGS, (reason) => log('warn', `interaction callbacks go over HTTP/1.1 for now: no HTTP/2 to ${new URL(apiBase).origin} (${reason})`));
+      : new Http2Origin(apiOrigin, HTTP2_ORIGIN_TIMINGS, (reason) => log('warn', `interaction callbacks go over HTTP/1.1 for now: no HTTP/2 to ${apiOrigin} (${reason})`));
   callbacks?.open();
   // Before the first real interaction: a cold reader cost the first burst after a start several ms.
   warmUpRawInteractionReader(ours);

@@ -115,14 +115,15 @@ export class Http2Origin {
       stream.on('data', (chunk: Buffer) => chunks.push(chunk));
       stream.on('end', () => {
         // With no answer's head, the stream ended because its connection did.
-        if (answer[':status'] === undefined) return void (settle() && reject(new Error(`HTTP/2 stream to ${this.origin} ended without an answer`)));
+        const status = answer[':status'];
+        if (status === undefined) return void (settle() && reject(new Error(`HTTP/2 stream to ${this.origin} ended without an answer`)));
         if (!settle()) return;
         const responseHeaders = new Headers();
         for (const [name, value] of Object.entries(answer)) {
           if (name.startsWith(':') || value === undefined) continue;
           for (const one of Array.isArray(value) ? value : [value]) responseHeaders.append(name, String(one));
         }
-        resolve(bufferedResponse(url, Number(answer[':status'] ?? 0), '', responseHeaders, Buffer.concat(chunks)));
+        resolve(bufferedResponse(url, Number(status), '', responseHeaders, Buffer.concat(chunks)));
       });
       stream.on('error', (error) => {
         if (settle()) reject(error);
