@@ -64,6 +64,9 @@ export class Http2Origin {
   /** Opens the connection unless it is open, being made, closed for good or in its wait after a failure; counts as use. */
   open(): void {
     this.lastCallMs = Date.now();
+    // One closing (idle, deaf, GOAWAY) is let go now, not at its 'close' event: until then it
+    // would keep a call from opening the next.
+    if (this.session && (this.session.closed || this.session.destroyed)) this.forget(this.session);
     if (this.closed || this.session || Date.now() < this.notBeforeMs) return;
     const session = connect(this.origin);
     this.session = session;

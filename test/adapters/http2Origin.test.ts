@@ -130,6 +130,19 @@ describe('Http2Origin', () => {
     expect(sessions).toHaveLength(2);
   });
 
+  it('opens a new connection for a call that comes the moment a quiet one was closed', async () => {
+    const { server, sessions } = echoServer();
+    const origin = await listen(server);
+    const http2 = opened(origin, { pingIntervalMs: 20, idleCloseMs: 60, retryAfterFailureMs: 600_000 });
+    const nextTurn = () => new Promise((resolve) => setImmediate(resolve));
+    // Checked every turn of the event loop, so the call comes before the closed connection's 'close' event.
+    await waitUntil(() => http2.ready(), 3_000, 'the connection', 0);
+    while (http2.ready()) await nextTurn();
+    http2.open();
+    await until(() => http2.ready(), 'a new connection');
+    expect(sessions).toHaveLength(2);
+  });
+
   it('gives up a connection whose PING goes unanswered', async () => {
     // Carries bytes from each socket into an HTTP/2 server until told to go deaf.
     const h2 = echoServer();
